@@ -1,0 +1,2 @@
+/** Lattice builders (public door of workers/src/lattice). */
+export { buildLattice } from './build-lattice.js';
