@@ -1,0 +1,159 @@
+/**
+ * applyOperatorAffine — out ← α·H·in + β·in + γ·out on a batch of 2^N vectors, matrix-free.
+ *
+ * Formula: with H compiled as diag(d) + Σ_x F_x·diag(t_x) (F_x|s⟩ = |s⊕x⟩, see
+ * compile-operator.ts), per vector
+ *   pass 0:  out[s] ← (α·d[s] + β)·in[s] + γ·out[s]
+ *   pass x:  out[s⊕x] += α·t_x[s]·in[s]            for each flip group x.
+ * The scatter form of pass x keeps the inner loop a plain strided read of `in` and `t_x`.
+ * Source: standard matrix-free Pauli-sum application (common practice).
+ *
+ * Cost per vector: (3 + 8·G) · dim flops for G groups; memory traffic ≈ (3 + 4·G)·16·dim bytes
+ * (each group pass reads in, table and out and writes out). No allocation.
+ * Groups compiled without tables (`{ tables: false }`) are evaluated from their terms on the
+ * fly: no table traffic, one parity per term and entry.
+ * Caveats: `in` and `out` must not overlap. When γ = 0, `out` is not read (NaN/garbage in
+ * `out` does not propagate), as in BLAS.
+ */
+import type { CompiledGroup, CompiledOperator } from './compile-operator.js';
+import { groupEntryIm, groupEntryRe } from './group-entry.js';
+import { parity } from './parity.js';
+
+/**
+ * For each of `nVectors` contiguous complex vectors of `op.dim` entries:
+ * out ← α·H·in + β·in + γ·out (real α, β, γ). `input` and `out` must be distinct buffers of
+ * at least 2·dim·nVectors doubles.
+ *
+ * @throws RangeError when a buffer is too short, `nVectors` is not a non-negative integer,
+ *   or `input === out`.
+ */
+export function applyOperatorAffine(
+  op: CompiledOperator,
+  nVectors: number,
+  input: Float64Array,
+  out: Float64Array,
+  alpha: number,
+  beta: number,
+  gamma: number,
+): void {
+  const dim = op.dim;
+  if (!Number.isInteger(nVectors) || nVectors < 0) {
+    throw new RangeError(`nVectors must be a non-negative integer; got ${nVectors}`);
+  }
+  const need = 2 * dim * nVectors;
+  if (input.length < need) throw new RangeError(`input must hold at least ${need} doubles; got ${input.length}`);
+  if (out.length < need) throw new RangeError(`out must hold at least ${need} doubles; got ${out.length}`);
+  if (input === out) throw new RangeError('input and out must be different buffers');
+  for (let v = 0; v < nVectors; v++) applyOne(op, 2 * dim * v, input, out, alpha, beta, gamma);
+}
+
+function applyOne(
+  op: CompiledOperator,
+  base: number,
+  input: Float64Array,
+  out: Float64Array,
+  alpha: number,
+  beta: number,
+  gamma: number,
+): void {
+  const dim = op.dim;
+  const diag = op.diagonal;
+  // Pass 0: diagonal, β and γ fused.
+  if (diag !== null) {
+    if (gamma === 0) {
+      for (let s = 0, k = base; s < dim; s++, k += 2) {
+        const f = alpha * diag[s] + beta;
+        out[k] = f * input[k];
+        out[k + 1] = f * input[k + 1];
+      }
+    } else {
+      for (let s = 0, k = base; s < dim; s++, k += 2) {
+        const f = alpha * diag[s] + beta;
+        out[k] = f * input[k] + gamma * out[k];
+        out[k + 1] = f * input[k + 1] + gamma * out[k + 1];
+      }
+    }
+  } else if (gamma === 0) {
+    for (let k = base, end = base + 2 * dim; k < end; k++) out[k] = beta * input[k];
+  } else {
+    for (let k = base, end = base + 2 * dim; k < end; k++) out[k] = beta * input[k] + gamma * out[k];
+  }
+  if (alpha === 0) return;
+  // Pass x: out[s⊕x] += α·t[s]·in[s].
+  const groups = op.groups;
+  for (let g = 0; g < groups.length; g++) {
+    const x = groups[g].x;
+    const t = groups[g].table;
+    if (t.length === 0) {
+      scatterCompact(groups[g], base, input, out, alpha, dim);
+      continue;
+    }
+    for (let s = 0; s < dim; s++) {
+      const ts = 2 * s;
+      const tr = alpha * t[ts];
+      const ti = alpha * t[ts + 1];
+      const k = base + ts;
+      const ir = input[k];
+      const ii = input[k + 1];
+      const o = base + 2 * (s ^ x);
+      out[o] += tr * ir - ti * ii;
+      out[o + 1] += tr * ii + ti * ir;
+    }
+  }
+}
+
+/**
+ * out[s⊕x] += α·entry(s)·in[s] with entries computed from the group's terms: one- and two-term
+ * groups (single flips, XX+YY pairs) get inlined sign loops, larger groups the generic sum.
+ */
+function scatterCompact(
+  g: CompiledGroup, base: number, input: Float64Array, out: Float64Array, alpha: number, dim: number,
+): void {
+  const x = g.x;
+  const zs = g.zMasks;
+  const cs = g.coefficients;
+  if (zs.length === 1) {
+    const z = zs[0];
+    const cr = alpha * cs[0];
+    const ci = alpha * cs[1];
+    for (let s = 0; s < dim; s++) {
+      const sg = 1 - 2 * parity(s & z);
+      const tr = sg * cr;
+      const ti = sg * ci;
+      const k = base + 2 * s;
+      const ir = input[k];
+      const ii = input[k + 1];
+      const o = base + 2 * (s ^ x);
+      out[o] += tr * ir - ti * ii;
+      out[o + 1] += tr * ii + ti * ir;
+    }
+    return;
+  }
+  if (zs.length === 2) {
+    const z1 = zs[0], z2 = zs[1];
+    const r1 = alpha * cs[0], i1 = alpha * cs[1], r2 = alpha * cs[2], i2 = alpha * cs[3];
+    for (let s = 0; s < dim; s++) {
+      const s1 = 1 - 2 * parity(s & z1);
+      const s2 = 1 - 2 * parity(s & z2);
+      const tr = s1 * r1 + s2 * r2;
+      const ti = s1 * i1 + s2 * i2;
+      const k = base + 2 * s;
+      const ir = input[k];
+      const ii = input[k + 1];
+      const o = base + 2 * (s ^ x);
+      out[o] += tr * ir - ti * ii;
+      out[o + 1] += tr * ii + ti * ir;
+    }
+    return;
+  }
+  for (let s = 0; s < dim; s++) {
+    const tr = alpha * groupEntryRe(g, s);
+    const ti = g.real ? 0 : alpha * groupEntryIm(g, s);
+    const k = base + 2 * s;
+    const ir = input[k];
+    const ii = input[k + 1];
+    const o = base + 2 * (s ^ x);
+    out[o] += tr * ir - ti * ii;
+    out[o + 1] += tr * ii + ti * ir;
+  }
+}
