@@ -2,6 +2,7 @@
  * Shared helpers for the benchmarks under tests/bench (not part of the test suites).
  * Benchmarks export `run(): Promise<BenchRecord[]>` and label runs `kernel:variant:size=N`.
  */
+import { readFileSync } from 'node:fs';
 import { performance } from 'node:perf_hooks';
 
 /** One benchmark measurement. */
@@ -35,8 +36,18 @@ export function timeIt(fn: () => void, reps: number): number[] {
   return times;
 }
 
-/** Peak resident set size of this process so far, MiB. */
+/**
+ * Peak resident set size of this process so far, MiB. On Linux this reads VmHWM from
+ * /proc/self/status: getrusage's maxRSS survives fork+exec, so a child spawned by a parent
+ * that had touched large arrays would report the parent's peak.
+ */
 export function peakRssMb(): number {
+  try {
+    const m = /VmHWM:\s+(\d+)\s+kB/.exec(readFileSync('/proc/self/status', 'utf8'));
+    if (m) return Number(m[1]) / 1024;
+  } catch {
+    // not Linux: fall back below
+  }
   return process.resourceUsage().maxRSS / 1024;
 }
 
