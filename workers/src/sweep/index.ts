@@ -3,7 +3,7 @@ export { parseSweepSpec, type ParsedSweepSpec } from './parse-sweep-spec.js';
 export { selectEngine, ENGINES } from './select-engine.js';
 export { sweepHeader } from './sweep-header.js';
 export { ResultAssembler, type PointRef } from './result-assembler.js';
-export { runSweep, type SweepSink, type RunSweepOptions } from './run-sweep.js';
+export { runSweep, localThreads, MIN_THREADED_SECONDS, type SweepSink, type RunSweepOptions } from './run-sweep.js';
 export { resultToCsv } from './result-csv.js';
 export { timeGrid } from './time-grid.js';
 export { betaGrid } from './beta-grid.js';
