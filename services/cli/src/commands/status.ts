@@ -1,0 +1,48 @@
+/** `betasweep status ID` — status, per-branch progress, timings and plan of one sweep. */
+import type { Command } from 'commander';
+import { action, clientOptions, withClient, type ClientFlags } from '../client/index.js';
+import type { RegisterCommand } from './index.js';
+
+interface StatusReply {
+  id: string;
+  status: string;
+  label: string;
+  engine: string;
+  error: string | null;
+  pointsDone: number;
+  pointsTotal: number;
+  progress: number;
+  branches: Array<{ index: number; betaIndices: number[]; state: string; attempts: number; pointsDone: number; pointsTotal: number; worker: string | null; error: string | null }>;
+  timings: { createdAt: string; startedAt: string | null; finishedAt: string | null; queuedSeconds: number; runSeconds: number | null };
+  plan: { engine: string; reason: string; seconds: number; memoryBytes: number; accuracy: number };
+  betas: number[];
+}
+
+/** Human-readable status lines. */
+export function formatStatus(s: StatusReply): string {
+  const lines = [
+    `${s.id}  ${s.status}${s.label ? `  "${s.label}"` : ''}`,
+    `  engine   ${s.engine}: ${s.plan.reason}`,
+    `  plan     ~${s.plan.seconds.toPrecision(3)} s on one core, ${(s.plan.memoryBytes / 2 ** 20).toFixed(1)} MiB per branch, accuracy ${s.plan.accuracy}`,
+    `  points   ${s.pointsDone}/${s.pointsTotal} (${(100 * s.progress).toFixed(1)} %)`,
+    `  timings  queued ${s.timings.queuedSeconds.toFixed(2)} s${s.timings.runSeconds !== null ? `, running ${s.timings.runSeconds.toFixed(2)} s` : ''}${s.timings.finishedAt ? `, finished ${s.timings.finishedAt}` : ''}`,
+  ];
+  if (s.error) lines.push(`  error    ${s.error}`);
+  for (const b of s.branches) {
+    const betas = b.betaIndices.map((i) => s.betas[i]).join(', ');
+    lines.push(`  branch ${String(b.index).padStart(3)}  β=${betas.padEnd(12)} ${b.state.padEnd(9)} ${b.pointsDone}/${b.pointsTotal}` +
+      `${b.attempts > 1 ? `  attempt ${b.attempts}` : ''}${b.worker ? `  on ${b.worker}` : ''}${b.error ? `  (${b.error})` : ''}`);
+  }
+  return lines.join('\n') + '\n';
+}
+
+export const registerStatus: RegisterCommand = (program: Command) => {
+  clientOptions(program.command('status'))
+    .description('show a sweep: status, per-branch progress, timings, plan')
+    .argument('<id>', 'sweep id')
+    .option('--json', 'print JSON')
+    .action(action(async (id: string, flags: ClientFlags & { json?: boolean }) => {
+      const s = await withClient(flags).request<StatusReply>('GET', `/v1/sweeps/${encodeURIComponent(id)}`, undefined, { sweepId: id });
+      process.stdout.write(flags.json ? JSON.stringify(s) + '\n' : formatStatus(s));
+    }));
+};

@@ -1,0 +1,106 @@
+/**
+ * The stored shape of a sweep and its branches. These zod schemas are the only source of the
+ * record types; the API reuses them for its status responses.
+ */
+import { z } from 'zod';
+import { SweepHeader, SweepPlan, SweepSpec } from '../../../shared-types/src/index.js';
+
+/** Life cycle of a sweep. `succeeded`, `failed` and `cancelled` are terminal. */
+export const SweepStatus = z.enum(['queued', 'running', 'succeeded', 'failed', 'cancelled']).meta({ id: 'SweepStatus' });
+export type SweepStatus = z.infer<typeof SweepStatus>;
+
+/** The terminal statuses (no further change, retention clock running). */
+export const TERMINAL_STATUSES: readonly SweepStatus[] = ['succeeded', 'failed', 'cancelled'];
+
+/** True for `succeeded`, `failed` and `cancelled`. */
+export function isTerminal(status: SweepStatus): boolean {
+  return TERMINAL_STATUSES.includes(status);
+}
+
+/** Life cycle of one branch (a list of β indices run by one queue job). */
+export const BranchState = z.enum(['queued', 'running', 'retrying', 'done', 'failed', 'cancelled']).meta({ id: 'BranchState' });
+export type BranchState = z.infer<typeof BranchState>;
+
+/** What the store keeps per branch (JSON in the branches hash). */
+export const BranchInfo = z.object({
+  state: BranchState,
+  /** Attempts started so far (1 on the first run). */
+  attempts: z.number().int().min(0),
+  /** Worker that ran the latest attempt. */
+  worker: z.string().nullable(),
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
+  /** Message of the latest failure, if any. */
+  error: z.string().nullable(),
+});
+export type BranchInfo = z.infer<typeof BranchInfo>;
+
+/** A branch as reported: its β indices, state and how many of its points are stored. */
+export const BranchProgress = BranchInfo.extend({
+  index: z.number().int().min(0),
+  betaIndices: z.array(z.number().int().min(0)),
+  pointsDone: z.number().int().min(0),
+  pointsTotal: z.number().int().min(0),
+}).meta({ id: 'BranchProgress' });
+export type BranchProgress = z.infer<typeof BranchProgress>;
+
+/** A sweep as stored and reported. */
+export const SweepRecord = z.object({
+  id: z.string(),
+  owner: z.string(),
+  status: SweepStatus,
+  label: z.string(),
+  specHash: z.string(),
+  engine: z.string(),
+  createdAt: z.string(),
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
+  /** Why the sweep failed (null otherwise). */
+  error: z.string().nullable(),
+  spec: SweepSpec,
+  plan: SweepPlan,
+  header: SweepHeader,
+  branches: z.array(BranchProgress),
+  pointsDone: z.number().int().min(0),
+  pointsTotal: z.number().int().min(0),
+});
+export type SweepRecord = z.infer<typeof SweepRecord>;
+
+/** What a caller supplies to create a sweep (the store adds id, status and times). */
+export interface NewSweep {
+  owner: string;
+  spec: SweepSpec;
+  specHash: string;
+  plan: SweepPlan;
+  header: SweepHeader;
+  /** Create a new sweep even if this owner already has one for the same canonical spec. @defaultValue false */
+  fresh?: boolean;
+  /** Refuse when the owner already has this many queued or running sweeps; 0 = no cap. @defaultValue 0 */
+  maxActive?: number;
+}
+
+/** Outcome of {@link JobStore.createSweep}. */
+export type CreateSweepOutcome =
+  | { kind: 'created'; id: string }
+  | { kind: 'existing'; id: string }
+  | { kind: 'capped'; active: number };
+
+/** One record a running branch produces. */
+export type BranchRecord =
+  | { kind: 'thermo'; betaIndex: number; json: string }
+  | { kind: 'point'; betaIndex: number; timeIndex: number; json: string }
+  | { kind: 'diagnostics'; betaIndex: number; json: string };
+
+/** A page of the owner's sweeps, newest first. */
+export interface SweepPage {
+  items: SweepRecord[];
+  /** Pass back to get the next page; null at the end. */
+  nextCursor: string | null;
+}
+
+/** Everything stored for a sweep's final assembly. */
+export interface StoredRecords {
+  points: string[];
+  thermo: string[];
+  diagnostics: string[];
+}
