@@ -61,6 +61,7 @@ export function canonicalSpec(spec: SweepSpec): SweepSpec {
     engine: spec.engine,
     tolerance: z0(spec.tolerance),
     seed: z0(spec.seed),
+    ...(spec.mps === undefined ? {} : { mps: { ...spec.mps } }),
   };
 }
 

@@ -369,7 +369,7 @@ export const Observable = z.discriminatedUnion('kind', [
 export type Observable = z.infer<typeof Observable>;
 
 /** Engine names. `auto` picks one from the spec and the tolerance and says why. */
-export const EngineName = z.enum(['auto', 'exact'], { error: choiceMessage() }).meta({ id: 'EngineName' });
+export const EngineName = z.enum(['auto', 'exact', 'free-fermion', 'spectral', 'typical', 'mps'], { error: choiceMessage() }).meta({ id: 'EngineName' });
 export type EngineName = z.infer<typeof EngineName>;
 
 /**
@@ -379,6 +379,28 @@ export type EngineName = z.infer<typeof EngineName>;
 const PRINTABLE = /^[^\p{Cc}\p{Cs}\p{Zl}\p{Zp}\u202A-\u202E\u2066-\u2069]*$/u;
 /** Longest label, in UTF-16 code units. */
 const MAX_LABEL = 200;
+
+/**
+ * Settings of the `mps` engine (purified MPS with TEBD). Every field is optional: the engine
+ * derives what is missing from `tolerance` and says so in its plan. Other engines ignore it.
+ */
+export const MpsSettings = z.object({
+  /** Bond-dimension cap χ of the doubled state, 1..2048. @defaultValue 128 */
+  maxBond: whole('maxBond').min(1).max(2048).optional(),
+  /**
+   * Largest discarded weight per two-site update, relative to the state's squared norm,
+   * 0..1e−2. @defaultValue derived from tolerance (tolerance²/16 per expected update, clamped to 1e−16..1e−8)
+   */
+  truncation: real('truncation').min(0).max(1e-2).optional(),
+  /** Trotter order: 2 (Strang) or 4 (Forest–Ruth/Yoshida triple jump). @defaultValue 4 */
+  trotterOrder: z.union([z.literal(2), z.literal(4)], { error: choiceMessage() }).optional(),
+  /**
+   * Largest Trotter step, in time units for the quench and in units of β/2 for the imaginary
+   * time, 1e−4..1. @defaultValue derived from tolerance (see the engine's plan)
+   */
+  dt: real('dt').min(1e-4).max(1).optional(),
+}).strict().meta({ id: 'MpsSettings' });
+export type MpsSettings = z.infer<typeof MpsSettings>;
 
 /** The sweep spec. */
 export const SweepSpec = z.object({
@@ -411,6 +433,8 @@ export const SweepSpec = z.object({
   tolerance: real('tolerance').min(1e-13).max(1).default(1e-8),
   /** Seed for every random choice an engine makes, 0..2³¹−1. @defaultValue 1 */
   seed: whole('seed').min(0).max(2 ** 31 - 1).default(1),
+  /** Settings of the `mps` engine (optional; see {@link MpsSettings}). */
+  mps: MpsSettings.optional(),
 }).strict().meta({ id: 'SweepSpec' });
 
 /** A spec after defaults are applied (what engines receive). */
