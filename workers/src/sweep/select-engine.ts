@@ -8,9 +8,11 @@ import type { SweepPlan, SweepSpec } from '../../../shared-types/src/index.js';
 import type { Engine } from '../engines/engine.js';
 import { ExactEngine } from '../engines/exact/index.js';
 import { SpectralEngine } from '../engines/spectral/index.js';
+import { FreeFermionEngine } from '../engines/free-fermion/index.js';
 
 /** Engines by name, in the order `auto` prefers them on equal estimated time. */
 export const ENGINES: ReadonlyMap<string, Engine> = new Map<string, Engine>([
+  ['free-fermion', new FreeFermionEngine()],
   ['spectral', new SpectralEngine()],
   ['exact', new ExactEngine()],
 ]);
