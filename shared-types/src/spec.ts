@@ -369,7 +369,7 @@ export const Observable = z.discriminatedUnion('kind', [
 export type Observable = z.infer<typeof Observable>;
 
 /** Engine names. `auto` picks one from the spec and the tolerance and says why. */
-export const EngineName = z.enum(['auto', 'exact', 'free-fermion', 'spectral', 'typical', 'mps'], { error: choiceMessage() }).meta({ id: 'EngineName' });
+export const EngineName = z.enum(['auto', 'exact', 'spectral', 'free-fermion', 'typical', 'mps', 'series'], { error: choiceMessage() }).meta({ id: 'EngineName' });
 export type EngineName = z.infer<typeof EngineName>;
 
 /**

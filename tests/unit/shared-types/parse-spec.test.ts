@@ -57,7 +57,7 @@ describe('parseSpecInput', () => {
         'lattice.kind: must be one of "chain", "ladder", "square", "triangular", "honeycomb", "bonds", got "cubic"'],
       ['a lattice without kind', { lattice: { length: 4 } }, 'invalid_type', ['lattice', 'kind'],
         'lattice.kind: is required (one of "chain", "ladder", "square", "triangular", "honeycomb", "bonds")'],
-      ['an unknown engine', { engine: 'gpu' }, 'invalid_value', ['engine'], 'engine: must be one of "auto", "exact", got "gpu"'],
+      ['an unknown engine', { engine: 'gpu' }, 'invalid_value', ['engine'], 'engine: must be one of "auto", "exact", "spectral", "free-fermion", "typical", "mps", "series", got "gpu"'],
       ['a malformed Pauli word', { h1: { model: 'pauli-sum', terms: [{ weight: 1, word: 'X0Y1' }] } }, 'invalid_format',
         ['h1', 'terms', 0, 'word'],
         'h1.terms[0].word: a Pauli word is space-separated factors like "X0 Z3": a letter X, Y or Z, then a site index ("" is the identity)'],

@@ -202,7 +202,7 @@ describe('SweepSpec', () => {
       [{ seed: 1.5 }, 'seed', 'must be a whole number, got 1.5'],
       [{ lattice: { kind: 'chain', length: 4, boundary: 'twisted' } }, 'lattice.boundary',
         'must be one of "open", "periodic", got "twisted"'],
-      [{ engine: 'fast' }, 'engine', 'must be one of "auto", "exact", got "fast"'],
+      [{ engine: 'fast' }, 'engine', 'must be one of "auto", "exact", "spectral", "free-fermion", "typical", "mps", "series", got "fast"'],
       [{ lattice: { kind: 'square', size: [2] } }, 'lattice.size', 'must be a size [Lx, Ly], got 1 entries'],
     ])('should reject %j', (patch, path, message) => {
       const iss = firstIssue(patch);
@@ -353,7 +353,7 @@ describe('SweepSpec', () => {
     it('should infer the parsed spec with defaults filled in', () => {
       expectTypeOf<SweepSpec['betas']>().toEqualTypeOf<number[]>();
       expectTypeOf<SweepSpec['label']>().toEqualTypeOf<string>();
-      expectTypeOf<SweepSpec['engine']>().toEqualTypeOf<'auto' | 'exact'>();
+      expectTypeOf<SweepSpec['engine']>().toEqualTypeOf<'auto' | 'exact' | 'spectral' | 'free-fermion' | 'typical' | 'mps' | 'series'>();
       expectTypeOf<SweepSpec['tolerance']>().toEqualTypeOf<number>();
       expectTypeOf<SweepSpec['seed']>().toEqualTypeOf<number>();
       expectTypeOf<Lattice['kind']>()
