@@ -22,7 +22,7 @@ describe('branch workers', () => {
   const workers: BranchWorkerHandle[] = [];
 
   beforeAll(async () => {
-    process.env.BETASWEEP_FIXTURE_SPIN_MS = '25';
+    process.env.BETASWEEP_FIXTURE_SPIN_MS = '60';
     process.env.BETASWEEP_FIXTURE_LOG = LOG;
     api = await startTestApi({ prefix });
     token = await makeToken(testRedisUrl(), prefix, 'lab');
@@ -52,7 +52,7 @@ describe('branch workers', () => {
 
   describe('when two workers share one Redis and two sweeps are submitted', () => {
     it('should run both at once, with branch progress visible while they run', async () => {
-      // One β each: one branch per sweep, 24 points of ~25 ms each.
+      // One β each: one branch per sweep, 24 points of ~60 ms each.
       const specA = smallSpec({ label: 'two-a', betas: [0.5], times: { stop: 2, count: 24 } });
       const specB = smallSpec({ label: 'two-b', betas: [1], times: { stop: 2, count: 24 } });
       const [a, b] = [await submit(specA), await submit(specB)];
