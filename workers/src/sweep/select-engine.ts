@@ -9,12 +9,15 @@ import type { Engine } from '../engines/engine.js';
 import { ExactEngine } from '../engines/exact/index.js';
 import { SpectralEngine } from '../engines/spectral/index.js';
 import { FreeFermionEngine } from '../engines/free-fermion/index.js';
+import { SeriesEngine } from '../engines/series/index.js';
 
 /** Engines by name, in the order `auto` prefers them on equal estimated time. */
 export const ENGINES: ReadonlyMap<string, Engine> = new Map<string, Engine>([
   ['free-fermion', new FreeFermionEngine()],
   ['spectral', new SpectralEngine()],
   ['exact', new ExactEngine()],
+  // The cross-check engine comes last: auto takes it only when nothing exact can run.
+  ['series', new SeriesEngine()],
 ]);
 
 const fmtSeconds = (s: number) => (s < 1 ? `${(s * 1000).toFixed(0)} ms` : `${s.toPrecision(2)} s`);
