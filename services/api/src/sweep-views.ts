@@ -37,5 +37,6 @@ export function statusView(r: SweepRecord, now = Date.now()): z.infer<typeof Swe
     series: r.header.series,
     spec: r.spec,
     links: sweepLinks(r.id),
+    check: r.check,
   };
 }

@@ -13,7 +13,8 @@ export async function benchExactSweep(name: string, input: SweepSpecInput): Prom
   if (!parsed.success) throw new Error(`bench spec invalid: ${parsed.issues.map((i) => i.message).join('; ')}`);
   const triad = Number(process.env.BETASWEEP_BENCH_TRIAD_GBS) || triadBandwidth();
   const t0 = performance.now();
-  const result = await runSweep(parsed.spec);
+  // One thread: the targets are stated per core.
+  const result = await runSweep(parsed.spec, { threads: 1 });
   const seconds = (performance.now() - t0) / 1000;
   const n = result.plan.sites;
   const payloadMb = (16 * 4 ** n) / 2 ** 20;

@@ -6,6 +6,10 @@ export { startBranchWorker, type BranchWorkerOptions, type BranchWorkerHandle } 
 export { runStoredBranch, defaultEngineResolver, type RunStoredBranchOptions, type EngineResolver } from './run-stored-branch.js';
 export { createBranchProcessor, type BranchProcessorOptions } from './create-branch-processor.js';
 export { finalizeSweep, FINALIZE_CLAIM_MS } from './finalize-sweep.js';
+export {
+  computeSweepCheck, storeSweepCheck, summarizeCheck, CHECK_BUDGET_SECONDS, CHECK_MAX_THERMO_ORDER, CHECK_MAX_QUENCH_ORDER,
+  type SweepCheckDocument, type SweepCheckOptions,
+} from './sweep-check.js';
 export { StoreSink, type StoreSinkOptions } from './store-sink.js';
 export { SANDBOX_ENV, readSandboxEnv, type SandboxConfig } from './sandbox-env.js';
 export { BranchJobInvalidError } from './errors/branch-job-invalid-error.js';

@@ -9,5 +9,6 @@ export { STORE_DEFAULTS, type StoreOptions } from './store-options.js';
 export { connectRedis } from './connect-redis.js';
 export {
   SweepStatus, BranchState, BranchInfo, BranchProgress, SweepRecord, TERMINAL_STATUSES, isTerminal,
+  SweepCheckSummary, CheckSummaryVerdict,
   type NewSweep, type CreateSweepOutcome, type BranchRecord, type SweepPage, type StoredRecords,
 } from './sweep-record.js';

@@ -7,7 +7,7 @@
  * and the first write wins, so a retried branch or a zombie process never duplicates one.
  */
 import type {
-  BranchInfo, BranchRecord, CreateSweepOutcome, NewSweep, StoredRecords, SweepPage, SweepRecord,
+  BranchInfo, BranchRecord, CreateSweepOutcome, NewSweep, StoredRecords, SweepCheckSummary, SweepPage, SweepRecord,
   SweepStatus,
 } from './sweep-record.js';
 
@@ -71,6 +71,13 @@ export interface JobStore {
   cancelSweep(id: string): Promise<boolean>;
   /** The result document as stored (JSON text), or null. */
   getResultJson(id: string): Promise<string | null>;
+  /**
+   * Stores a succeeded sweep's check report and sets its summary on the sweep record (kept as
+   * long as the result). False when the sweep no longer exists.
+   */
+  storeCheck(id: string, reportJson: string, summary: SweepCheckSummary): Promise<boolean>;
+  /** The check report as stored (JSON text), or null (not computed yet, or expired). */
+  getCheckJson(id: string): Promise<string | null>;
   /** Releases connections. */
   close(): Promise<void>;
 }

@@ -14,6 +14,7 @@
  * | `{p}sweep:{id}:diag` | hash | β index → JSON diagnostics |
  * | `{p}sweep:{id}:events` | stream | live events (status, branch, thermo, point, diagnostics) |
  * | `{p}sweep:{id}:result` | string | the final result document (JSON) |
+ * | `{p}sweep:{id}:check` | string | the check report against the series (JSON), written after the result |
  * | `{p}sweep:{id}:finalize` | string | short-lived claim of the one process assembling the result |
  * | `{p}owner:{o}:sweeps` | zset | sweep ids by creation time (ms × 1000 + a per-process sequence) |
  * | `{p}owner:{o}:active` | set | the owner's queued or running sweeps (the cap) |
@@ -43,6 +44,8 @@ export interface StoreKeys {
   diagnostics(id: string): string;
   events(id: string): string;
   result(id: string): string;
+  /** The check report (JSON). */
+  check(id: string): string;
   finalize(id: string): string;
   /** All per-sweep keys (for retention and deletion). */
   allOfSweep(id: string): string[];
@@ -75,10 +78,11 @@ export function storeKeys(prefix: string = DEFAULT_KEY_PREFIX): StoreKeys {
     diagnostics: (id) => `${sw(id)}:diag`,
     events: (id) => `${sw(id)}:events`,
     result: (id) => `${sw(id)}:result`,
+    check: (id) => `${sw(id)}:check`,
     finalize: (id) => `${sw(id)}:finalize`,
     allOfSweep: (id) => [
       keys.sweep(id), keys.branches(id), keys.progress(id), keys.done(id), keys.points(id),
-      keys.thermo(id), keys.diagnostics(id), keys.events(id), keys.result(id),
+      keys.thermo(id), keys.diagnostics(id), keys.events(id), keys.result(id), keys.check(id),
     ],
     ownerSweeps: (o) => `${prefix}owner:${safe(o)}:sweeps`,
     ownerActive: (o) => `${prefix}owner:${safe(o)}:active`,

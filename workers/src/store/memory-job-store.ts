@@ -8,7 +8,7 @@ import type { BranchControl, JobStore, ListOptions } from './job-store.js';
 import { newSweepId } from './new-sweep-id.js';
 import {
   isTerminal, type BranchInfo, type BranchRecord, type CreateSweepOutcome, type NewSweep,
-  type StoredRecords, type SweepPage, type SweepRecord, type SweepStatus,
+  type StoredRecords, type SweepCheckSummary, type SweepPage, type SweepRecord, type SweepStatus,
 } from './sweep-record.js';
 
 interface MemorySweep {
@@ -32,6 +32,7 @@ interface MemorySweep {
   thermo: Map<number, string>;
   diagnostics: Map<number, string>;
   result: string | null;
+  check: { json: string; summary: SweepCheckSummary } | null;
   finalizeUntil: number;
 }
 
@@ -57,7 +58,7 @@ export class MemoryJobStore implements JobStore {
       spec: input.spec, plan: input.plan, header: input.header,
       branches: input.plan.branches.map(() => ({ state: 'queued', attempts: 0, worker: null, startedAt: null, finishedAt: null, error: null })),
       progress: input.plan.branches.map(() => 0), done: new Set(), points: new Map(), thermo: new Map(), diagnostics: new Map(),
-      result: null, finalizeUntil: 0,
+      result: null, check: null, finalizeUntil: 0,
     });
     this.dedupe.set(dedupeKey, id);
     return { kind: 'created', id };
@@ -73,6 +74,7 @@ export class MemoryJobStore implements JobStore {
       createdAt: s.createdAt, startedAt: s.startedAt, finishedAt: s.finishedAt, error: s.error,
       spec: s.spec, plan: s.plan, header: s.header, branches,
       pointsDone: s.points.size, pointsTotal: s.header.betas.length * nt,
+      check: s.check?.summary ?? null,
     };
   }
 
@@ -207,6 +209,17 @@ export class MemoryJobStore implements JobStore {
 
   async getResultJson(id: string): Promise<string | null> {
     return this.sweeps.get(id)?.result ?? null;
+  }
+
+  async storeCheck(id: string, reportJson: string, summary: SweepCheckSummary): Promise<boolean> {
+    const s = this.sweeps.get(id);
+    if (!s) return false;
+    s.check = { json: reportJson, summary };
+    return true;
+  }
+
+  async getCheckJson(id: string): Promise<string | null> {
+    return this.sweeps.get(id)?.check?.json ?? null;
   }
 
   async close(): Promise<void> {}

@@ -11,7 +11,7 @@ import { BRANCH_STATE, CREATE_SWEEP, STORED_COUNTS, TRANSITION, WRITE_RECORDS } 
 import { newSweepId } from './new-sweep-id.js';
 import { STORE_DEFAULTS, type StoreOptions } from './store-options.js';
 import {
-  BranchInfo, isTerminal, type BranchProgress, type BranchRecord, type CreateSweepOutcome,
+  BranchInfo, SweepCheckSummary, isTerminal, type BranchProgress, type BranchRecord, type CreateSweepOutcome,
   type NewSweep, type StoredRecords, type SweepPage, type SweepRecord, type SweepStatus,
 } from './sweep-record.js';
 
@@ -36,7 +36,18 @@ const SCRIPTS: Array<[keyof ScriptedRedis, string]> = [
 const SUMMARY_FIELDS = ['id', 'owner', 'status', 'label', 'specHash', 'engine', 'createdAt', 'startedAt', 'finishedAt', 'error', 'pointsTotal'] as const;
 
 /** A sweep as listed: the record without spec, plan, header and branches. */
-export type SweepSummary = Omit<SweepRecord, 'spec' | 'plan' | 'header' | 'branches'>;
+export type SweepSummary = Omit<SweepRecord, 'spec' | 'plan' | 'header' | 'branches' | 'check'>;
+
+/** The check summary field of the record hash, or null when absent or unreadable. */
+function parseCheck(text: string | null | undefined): SweepCheckSummary | null {
+  if (!text) return null;
+  try {
+    const parsed = SweepCheckSummary.safeParse(JSON.parse(text));
+    return parsed.success ? parsed.data : null;
+  } catch {
+    return null;
+  }
+}
 
 /** Orders sweeps created in the same millisecond by one process (listing score = ms × 1000 + this). */
 let createSeq = 0;
@@ -120,17 +131,17 @@ export class RedisJobStore implements JobStore {
     const k = this.keys;
     const cached = this.fixed.get(id);
     const pipe = this.redis.multi();
-    if (cached) pipe.hmget(k.sweep(id), 'status', 'startedAt', 'finishedAt', 'error');
+    if (cached) pipe.hmget(k.sweep(id), 'status', 'startedAt', 'finishedAt', 'error', 'check');
     else pipe.hgetall(k.sweep(id));
     const res = await pipe.hgetall(k.branches(id)).hgetall(k.progress(id)).exec();
     if (!res) return null;
     let rec: Record<string, string>;
     let fixed: FixedPart;
     if (cached) {
-      const [status, startedAt, finishedAt, error] = res[0][1] as (string | null)[];
+      const [status, startedAt, finishedAt, error, check] = res[0][1] as (string | null)[];
       if (!status) return null;
       fixed = cached;
-      rec = { ...cached.rec, status, startedAt: startedAt ?? '', finishedAt: finishedAt ?? '', error: error ?? '' };
+      rec = { ...cached.rec, status, startedAt: startedAt ?? '', finishedAt: finishedAt ?? '', error: error ?? '', check: check ?? '' };
     } else {
       rec = (res[0][1] ?? {}) as Record<string, string>;
       if (!rec.id) return null;
@@ -155,6 +166,7 @@ export class RedisJobStore implements JobStore {
       plan: fixed.plan,
       header: fixed.header,
       branches: list,
+      check: parseCheck(rec.check),
     };
   }
 
@@ -333,6 +345,22 @@ export class RedisJobStore implements JobStore {
 
   async getResultJson(id: string): Promise<string | null> {
     return this.redis.get(this.keys.result(id));
+  }
+
+  async storeCheck(id: string, reportJson: string, summary: SweepCheckSummary): Promise<boolean> {
+    const k = this.keys;
+    // The terminal transition set the record's expiry; the report lives exactly as long.
+    const ttl = await this.redis.pttl(k.sweep(id));
+    if (ttl === -2) return false;
+    const pipe = this.redis.multi();
+    if (ttl > 0) pipe.set(k.check(id), reportJson, 'PX', ttl);
+    else pipe.set(k.check(id), reportJson);
+    await pipe.hset(k.sweep(id), 'check', JSON.stringify(summary)).exec();
+    return true;
+  }
+
+  async getCheckJson(id: string): Promise<string | null> {
+    return this.redis.get(this.keys.check(id));
   }
 
   /**

@@ -44,6 +44,30 @@ export const BranchProgress = BranchInfo.extend({
 }).meta({ id: 'BranchProgress' });
 export type BranchProgress = z.infer<typeof BranchProgress>;
 
+/** Overall verdict of a sweep's check report against its series (see queue/sweep-check.ts). */
+export const CheckSummaryVerdict = z.enum(['agree', 'disagree', 'no-window', 'error']).meta({ id: 'CheckSummaryVerdict' });
+export type CheckSummaryVerdict = z.infer<typeof CheckSummaryVerdict>;
+
+/**
+ * The check summary kept on the sweep record once the check report is stored:
+ * 'disagree' when some value disagrees inside the series window (then `flagged`), 'no-window'
+ * when every value lies outside it, 'error' when the check could not be computed (`note` says why).
+ */
+export const SweepCheckSummary = z.object({
+  verdict: CheckSummaryVerdict,
+  /** True when some value disagrees with its series inside the series window. */
+  flagged: z.boolean(),
+  /** Entries of the report by verdict. */
+  counts: z.object({
+    agree: z.number().int().min(0),
+    disagree: z.number().int().min(0),
+    outsideWindow: z.number().int().min(0),
+  }),
+  /** Why the check failed or was cut short (null otherwise). */
+  note: z.string().nullable(),
+}).meta({ id: 'SweepCheckSummary' });
+export type SweepCheckSummary = z.infer<typeof SweepCheckSummary>;
+
 /** A sweep as stored and reported. */
 export const SweepRecord = z.object({
   id: z.string(),
@@ -63,6 +87,8 @@ export const SweepRecord = z.object({
   branches: z.array(BranchProgress),
   pointsDone: z.number().int().min(0),
   pointsTotal: z.number().int().min(0),
+  /** Summary of the check report against the series; null until it is stored (after success). */
+  check: SweepCheckSummary.nullable(),
 });
 export type SweepRecord = z.infer<typeof SweepRecord>;
 

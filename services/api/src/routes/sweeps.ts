@@ -1,6 +1,6 @@
 /**
  * /v1/sweeps: submit, list, status, result (JSON and CSV), cancel, stream token.
- * The live event stream is in sweep-events.ts.
+ * The live event stream is in sweep-events.ts, the check report in sweep-check.ts.
  */
 import { createHash, randomBytes } from 'node:crypto';
 import type { FastifyRequest } from 'fastify';
@@ -17,6 +17,7 @@ import {
   SweepResultBody, SweepSpecBody, SweepStatusBody,
 } from '../schemas/sweep-bodies.js';
 import { statusView, sweepLinks } from '../sweep-views.js';
+import { sweepCheckRoute } from './sweep-check.js';
 import { sweepEventsRoute } from './sweep-events.js';
 import type { Planner } from '../planner.js';
 
@@ -202,6 +203,7 @@ export function sweepsRoutes(ctx: ApiContext): FastifyPluginAsyncZod {
     });
 
     await app.register(sweepEventsRoute(ctx));
+    await app.register(sweepCheckRoute(ctx));
   };
 }
 

@@ -1,7 +1,7 @@
 /** Request and response schemas of the sweep routes (the OpenAPI document is generated from them). */
 import { z } from 'zod';
 import { SweepPlan, SweepResult, SweepSpec, SeriesInfo, SweepHeader } from '../../../../shared-types/src/index.js';
-import { BranchProgress, SWEEP_ID_PATTERN, SweepStatus } from '../../../../workers/src/store/index.js';
+import { BranchProgress, SWEEP_ID_PATTERN, SweepCheckSummary, SweepStatus } from '../../../../workers/src/store/index.js';
 
 // The shared schemas carry their own `.meta({ id })`; the OpenAPI document names them so.
 /** The spec as submitted. */
@@ -68,6 +68,11 @@ export const SweepStatusBody = z.object({
   series: z.array(SeriesInfo),
   spec: SweepSpecBody,
   links: SweepLinks,
+  /**
+   * Summary of the check against the series (GET …/check has the report); null until the
+   * sweep has succeeded and its check is stored. `flagged`: a disagreement inside the window.
+   */
+  check: SweepCheckSummary.nullable(),
 }).meta({ id: 'SweepStatusReport' });
 
 export const SweepSummaryBody = z.object({

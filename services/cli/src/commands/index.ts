@@ -9,6 +9,7 @@ import { registerSubmit } from './submit.js';
 import { registerStatus } from './status.js';
 import { registerWatch } from './watch.js';
 import { registerFetch } from './fetch.js';
+import { registerCheck } from './check.js';
 import { registerCancel } from './cancel.js';
 import { registerList } from './list.js';
 import { registerClientConfig } from './client-config.js';
@@ -30,6 +31,7 @@ export const commands: RegisterCommand[] = [
   registerStatus,
   registerWatch,
   registerFetch,
+  registerCheck,
   registerCancel,
   registerList,
   registerClientConfig,

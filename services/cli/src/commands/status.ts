@@ -16,6 +16,7 @@ interface StatusReply {
   timings: { createdAt: string; startedAt: string | null; finishedAt: string | null; queuedSeconds: number; runSeconds: number | null };
   plan: { engine: string; reason: string; seconds: number; memoryBytes: number; accuracy: number };
   betas: number[];
+  check?: { verdict: string; flagged: boolean; counts: { agree: number; disagree: number; outsideWindow: number }; note: string | null } | null;
 }
 
 /** Human-readable status lines. */
@@ -28,6 +29,11 @@ export function formatStatus(s: StatusReply): string {
     `  timings  queued ${s.timings.queuedSeconds.toFixed(2)} s${s.timings.runSeconds !== null ? `, running ${s.timings.runSeconds.toFixed(2)} s` : ''}${s.timings.finishedAt ? `, finished ${s.timings.finishedAt}` : ''}`,
   ];
   if (s.error) lines.push(`  error    ${s.error}`);
+  if (s.check) {
+    const c = s.check.counts;
+    lines.push(`  check    ${s.check.verdict}${s.check.flagged ? ' (FLAGGED)' : ''}: ${c.agree} agree, ${c.disagree} disagree, ${c.outsideWindow} outside the series window` +
+      `${s.check.note ? ` (${s.check.note})` : ''}; betasweep check ${s.id}`);
+  }
   for (const b of s.branches) {
     const betas = b.betaIndices.map((i) => s.betas[i]).join(', ');
     lines.push(`  branch ${String(b.index).padStart(3)}  β=${betas.padEnd(12)} ${b.state.padEnd(9)} ${b.pointsDone}/${b.pointsTotal}` +
