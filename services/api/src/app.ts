@@ -17,6 +17,7 @@ import { engineRoutes } from './routes/engines.js';
 import { planRoutes } from './routes/plan.js';
 import { serviceRoutes } from './routes/service.js';
 import { sweepsRoutes } from './routes/sweeps.js';
+import { dashboardPlugin } from './plugins/dashboard.js';
 
 /** The API version reported in the OpenAPI document. */
 export const API_VERSION = '1.0.0';
@@ -76,6 +77,7 @@ export async function buildApp(ctx: ApiContext, hooks: BuildAppHooks = {}): Prom
   });
 
   await app.register(serviceRoutes(ctx));
+  await app.register(dashboardPlugin());
 
   await app.register(async (v1) => {
     installAuth(v1, ctx.tokens);

@@ -13,6 +13,7 @@ import { registerCheck } from './check.js';
 import { registerCancel } from './cancel.js';
 import { registerList } from './list.js';
 import { registerClientConfig } from './client-config.js';
+import { registerPlot } from './plot.js';
 
 /** A command module registers one (or a group of) sub-command(s) on the program. */
 export type RegisterCommand = (program: Command) => void;
@@ -35,4 +36,5 @@ export const commands: RegisterCommand[] = [
   registerCancel,
   registerList,
   registerClientConfig,
+  registerPlot,
 ];

@@ -33,6 +33,7 @@ export const registerServe: RegisterCommand = (program: Command) => {
     .action(async (flags: ServeFlags) => {
       // Loaded here, not at start-up: the other commands should not pay for it.
       const { createApi } = await import('../../../api/src/index.js');
+      await (await import('../../../dashboard/build-dashboard.js')).ensureDashboardBuilt((line) => process.stderr.write(`betasweep: ${line}\n`));
       const retentionDays = int(flags.retentionDays, 'retention-days');
       const api = await createApi({
         redisUrl: flags.redis,
