@@ -17,7 +17,10 @@
  *    Q has a zero on [0, u] or is nearly zero there; the spread of the survivors estimates the
  *    error (PADE_SAFETY × spread, and inside the radius at least PADE_FLOOR × the partial sum's
  *    tail: agreement among approximants is not proof). Used when it beats the partial sum, or beyond the radius up
- *    to PADE_REACH·R when at least MIN_PADE_AGREE approximants survive.
+ *    to PADE_REACH·R when at least MIN_PADE_AGREE approximants survive. Approximants are counted
+ *    once per reduced degree pair [l/m] (trailing coefficients below ZERO_RELATIVE dropped): when
+ *    coefficients vanish by structure (an odd λ-series of a quench double series) whole blocks of
+ *    the Padé table are one rational function, whose copies would fake a spread of ~1e-13.
  * 5. Rounding: Σ rounding_k x^k is added to every error.
  * Every returned value carries an error; `inWindow` is false when the error is infinite.
  * Cost: O(N⁴) at most (a few small Padé solves).
@@ -164,14 +167,23 @@ export function resumSeries(c: ArrayLike<number>, x: number, options: ResumOptio
   let best: SeriesEstimate = { value: sum, error: tail + round, method: 'partial-sum', radius: shape.radius, inWindow: Number.isFinite(tail) };
   if (!pade || J < 3) return best;
   const values: Array<{ v: number; order: number; offDiag: number }> = [];
+  const reduced = new Set<string>();
   for (let total = J; total >= J - 1; total--) {
     for (let M = 1; M <= total; M++) {
       const L = total - M;
       if (Math.abs(L - M) > 2) continue;
       const a = padeApproximant(b, L, M);
       if (a === null || !denominatorClear(a, u)) continue;
+      // Coefficients that vanish by structure (e.g. an odd series) make blocks of the Padé table
+      // equal to one reduced approximant: count each reduced [l/m] once, or their agreement
+      // would look like convergence.
+      const key = `${effectiveDegree(a.p)}/${effectiveDegree(a.q)}`;
+      if (reduced.has(key)) continue;
       const v = evaluatePade(a, u);
-      if (Number.isFinite(v)) values.push({ v, order: total, offDiag: Math.abs(L - M) });
+      if (Number.isFinite(v)) {
+        reduced.add(key);
+        values.push({ v, order: total, offDiag: Math.abs(L - M) });
+      }
     }
   }
   if (values.length < 2) return best;
@@ -185,6 +197,15 @@ export function resumSeries(c: ArrayLike<number>, x: number, options: ResumOptio
     best = { value: v0, error: padeError, method: 'pade', radius: shape.radius, inWindow: true };
   }
   return best;
+}
+
+/** Degree of a polynomial with coefficients below ZERO_RELATIVE × the largest treated as zero. */
+function effectiveDegree(p: Float64Array): number {
+  let big = 0;
+  for (const v of p) big = Math.max(big, Math.abs(v));
+  let d = p.length - 1;
+  while (d > 0 && !(Math.abs(p[d]) > ZERO_RELATIVE * big)) d--;
+  return d;
 }
 
 function lastNonzero(c: ArrayLike<number>): number {
