@@ -66,10 +66,12 @@ describe('worker crash', () => {
       expect(done.branches[0].attempts).toBe(2);
       expect(survivor.child.exitCode).toBeNull();
 
+      // The job completes after the sweep's status (the cross-check report runs in between);
+      // fetch it again once completed, or its return value is the stale one of an active job.
       const job = await waitFor(async () => {
         const j = await api.ctx.queue.queue.getJob(`${id}.0`);
-        return j && (await j.getState()) === 'completed' ? j : null;
-      }, 'the job to complete', 5000);
+        return j && (await j.getState()) === 'completed' ? api.ctx.queue.queue.getJob(`${id}.0`) : null;
+      }, 'the job to complete', 30_000);
       // The retry resumed after the points the first attempt had stored.
       expect(job.returnvalue.resumedFrom['0']).toBeGreaterThanOrEqual(8);
       expect(job.returnvalue.pointsWritten).toBe(60 - job.returnvalue.resumedFrom['0']);

@@ -59,8 +59,9 @@ describe('long branches', () => {
       // The sweep succeeds inside the processor, a moment before BullMQ marks the job completed.
       const job = await waitFor(async () => {
         const j = await api.ctx.queue.queue.getJob(`${id}.0`);
-        return j && (await j.getState()) === 'completed' ? j : null;
-      }, 'the job to complete', 5000);
+        // Fetch again once completed: a job read while still active carries no return value.
+        return j && (await j.getState()) === 'completed' ? api.ctx.queue.queue.getJob(`${id}.0`) : null;
+      }, 'the job to complete', 30_000);
       expect(job?.attemptsStarted).toBe(1);
       expect(job?.stalledCounter ?? 0).toBe(0);
       expect(job?.returnvalue).toMatchObject({ outcome: 'done', pointsWritten: 4, finalized: true });

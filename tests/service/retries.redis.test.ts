@@ -52,8 +52,9 @@ describe('branch retries', () => {
       expect(runs).toHaveLength(2);
       const job = await waitFor(async () => {
         const j = await api.ctx.queue.queue.getJob(`${id}.0`);
-        return j && (await j.getState()) === 'completed' ? j : null;
-      }, 'the job to complete', 5000);
+        // Fetch again once completed: a job read while still active carries no return value.
+        return j && (await j.getState()) === 'completed' ? api.ctx.queue.queue.getJob(`${id}.0`) : null;
+      }, 'the job to complete', 30_000);
       expect(job.attemptsMade).toBe(2);
       // The second attempt started no earlier than the back-off after the first one failed.
       expect(job.processedOn! - Date.parse(retrying.branches[0].finishedAt)).toBeGreaterThanOrEqual(BACKOFF_MS - 20);
