@@ -10,12 +10,16 @@ import { ExactEngine } from '../engines/exact/index.js';
 import { SpectralEngine } from '../engines/spectral/index.js';
 import { FreeFermionEngine } from '../engines/free-fermion/index.js';
 import { SeriesEngine } from '../engines/series/index.js';
+import { MpsEngine } from '../engines/mps/index.js';
+import { TypicalEngine } from '../engines/typical/index.js';
 
 /** Engines by name, in the order `auto` prefers them on equal estimated time. */
 export const ENGINES: ReadonlyMap<string, Engine> = new Map<string, Engine>([
   ['free-fermion', new FreeFermionEngine()],
   ['spectral', new SpectralEngine()],
   ['exact', new ExactEngine()],
+  ['mps', new MpsEngine()],
+  ['typical', new TypicalEngine()],
   // The cross-check engine comes last: auto takes it only when nothing exact can run.
   ['series', new SeriesEngine()],
 ]);
