@@ -60,7 +60,7 @@ describe('propagateToTimes', () => {
     expect(() => propagateToTimes(apply, interval, [1, 0.5], psi, w, o, 1e-8)).toThrow(/ascending/);
     expect(() => propagateToTimes(apply, interval, [-1], psi, w, o, 1e-8)).toThrow(/offsets/);
     expect(() => propagateToTimes(apply, interval, [1], psi, w, [psi], 1e-8)).toThrow(/outs\[0\]/);
-    expect(() => propagateToTimes(apply, interval, [1], psi, psi, o, 1e-8)).toThrow(/work/);
+    expect(() => propagateToTimes(apply, interval, [1], psi, psi, o, 1e-8)).toThrow(/^work must be a distinct vector/);
     expect(() => propagateToTimes(apply, { lo: 1, hi: 0 }, [1], psi, w, o, 1e-8)).toThrow(/interval/);
     expect(() => propagateToTimes(apply, interval, [1, 2, 3], psi, w, o, 1e-8)).toThrow(/outs must hold/);
   });
