@@ -3,7 +3,7 @@
  * Used by `betasweep serve` and by the tests that need a real socket.
  */
 import type { FastifyInstance } from 'fastify';
-import { SweepQueue } from '../../../workers/src/queue/index.js';
+import { SweepQueue, startUnqueuedReconciler } from '../../../workers/src/queue/index.js';
 import { RedisJobStore, TokenStore, STORE_DEFAULTS, connectRedis } from '../../../workers/src/store/index.js';
 import { buildApp } from './app.js';
 import { API_DEFAULTS, type ApiContext, type ApiOptions } from './context.js';
@@ -23,6 +23,13 @@ export interface CreateApiOptions extends ApiOptions {
   backoffMs?: number;
   /** The sweep runner by default. */
   planner?: Planner;
+  /**
+   * How often to re-queue sweeps whose submit stored them but did not confirm their branch
+   * jobs (a crash in between), ms; 0 turns it off. A first pass runs at start. @defaultValue 15000
+   */
+  reconcileEveryMs?: number;
+  /** Age below which an unconfirmed sweep is left alone (its submit may be in flight), ms. @defaultValue 10000 */
+  reconcileGraceMs?: number;
 }
 
 export interface Api {
@@ -50,10 +57,15 @@ export async function createApi(options: CreateApiOptions): Promise<Api> {
     } as Required<ApiOptions>,
   };
   const app = await buildApp(ctx);
+  const { reconcileEveryMs = 15_000, reconcileGraceMs = 10_000 } = options;
+  const stopReconciler = reconcileEveryMs > 0
+    ? startUnqueuedReconciler(store, ctx.queue, { everyMs: reconcileEveryMs, graceMs: reconcileGraceMs })
+    : () => undefined;
   return {
     app,
     ctx,
     async close() {
+      stopReconciler();
       await app.close();
       await ctx.queue.close();
       redis.disconnect();

@@ -29,8 +29,10 @@ export function uniquePrefix(tag: string): string {
 
 /** An API on the test Redis, with inject() for requests. */
 export async function startTestApi(options: Partial<CreateApiOptions> & { prefix: string; redisUrl?: string }): Promise<Api> {
-  // Tests poll status every few ms; only the rate-limit tests set a real limit.
-  const api = await createApi({ redisUrl: options.redisUrl ?? testRedisUrl(), rateLimitMax: 1_000_000, ...options });
+  // Tests poll status every few ms; only the rate-limit tests set a real limit. Several tests
+  // store sweeps without queueing them on purpose: the outbox reconciler runs only where a
+  // test turns it on (submit-outbox.redis.test.ts).
+  const api = await createApi({ redisUrl: options.redisUrl ?? testRedisUrl(), rateLimitMax: 1_000_000, reconcileEveryMs: 0, ...options });
   await api.app.ready();
   return api;
 }

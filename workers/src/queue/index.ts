@@ -10,6 +10,7 @@ export {
   computeSweepCheck, storeSweepCheck, summarizeCheck, CHECK_BUDGET_SECONDS, CHECK_MAX_THERMO_ORDER, CHECK_MAX_QUENCH_ORDER,
   type SweepCheckDocument, type SweepCheckOptions,
 } from './sweep-check.js';
+export { reconcileUnqueued, startUnqueuedReconciler, type ReconcileOptions, type ReconcileReport } from './reconcile-unqueued.js';
 export { StoreSink, type StoreSinkOptions } from './store-sink.js';
 export { SANDBOX_ENV, readSandboxEnv, type SandboxConfig } from './sandbox-env.js';
 export { BranchJobInvalidError } from './errors/branch-job-invalid-error.js';

@@ -34,6 +34,14 @@ export interface JobStore {
   createSweep(input: NewSweep): Promise<CreateSweepOutcome>;
   /** The full record with per-branch progress, or null. */
   getSweep(id: string): Promise<SweepRecord | null>;
+  /**
+   * Confirms that a created sweep's branch jobs are in the queue (removes it from the submit
+   * outbox). Until then {@link unqueuedSweeps} lists it, so a crash between storing a sweep
+   * and enqueueing its branches is repaired by the reconciler (queue/reconcile-unqueued.ts).
+   */
+  markEnqueued(id: string): Promise<void>;
+  /** Ids in the submit outbox created at least `olderThanMs` ago, oldest first (at most `limit`). */
+  unqueuedSweeps(olderThanMs: number, limit?: number): Promise<string[]>;
   /** The status alone (cheap), or null. */
   getStatus(id: string): Promise<SweepStatus | null>;
   /** The owner's sweeps, newest first. */

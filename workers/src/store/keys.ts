@@ -16,6 +16,7 @@
  * | `{p}sweep:{id}:result` | string | the final result document (JSON) |
  * | `{p}sweep:{id}:check` | string | the check report against the series (JSON), written after the result |
  * | `{p}sweep:{id}:finalize` | string | short-lived claim of the one process assembling the result |
+ * | `{p}unqueued` | zset | sweep ids stored but not yet confirmed in the branch queue, by creation ms (the submit outbox) |
  * | `{p}owner:{o}:sweeps` | zset | sweep ids by creation time (ms × 1000 + a per-process sequence) |
  * | `{p}owner:{o}:active` | set | the owner's queued or running sweeps (the cap) |
  * | `{p}owner:{o}:spec:{hash}` | string | latest sweep id for this canonical spec (dedupe) |
@@ -49,6 +50,8 @@ export interface StoreKeys {
   finalize(id: string): string;
   /** All per-sweep keys (for retention and deletion). */
   allOfSweep(id: string): string[];
+  /** Sweeps created whose branch jobs are not confirmed enqueued yet (the submit outbox). */
+  unqueued(): string;
   ownerSweeps(owner: string): string;
   ownerActive(owner: string): string;
   ownerSpec(owner: string, specHash: string): string;
@@ -84,6 +87,7 @@ export function storeKeys(prefix: string = DEFAULT_KEY_PREFIX): StoreKeys {
       keys.sweep(id), keys.branches(id), keys.progress(id), keys.done(id), keys.points(id),
       keys.thermo(id), keys.diagnostics(id), keys.events(id), keys.result(id), keys.check(id),
     ],
+    unqueued: () => `${prefix}unqueued`,
     ownerSweeps: (o) => `${prefix}owner:${safe(o)}:sweeps`,
     ownerActive: (o) => `${prefix}owner:${safe(o)}:active`,
     ownerSpec: (o, h) => `${prefix}owner:${safe(o)}:spec:${h}`,

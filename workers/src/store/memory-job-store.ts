@@ -40,6 +40,8 @@ export class MemoryJobStore implements JobStore {
   private readonly sweeps = new Map<string, MemorySweep>();
   private readonly dedupe = new Map<string, string>();
   private readonly handbacks = new Set<string>();
+  /** The submit outbox: sweep id → creation ms, until its branches are confirmed enqueued. */
+  private readonly unqueued = new Map<string, number>();
   private seq = 0;
 
   async createSweep(input: NewSweep): Promise<CreateSweepOutcome> {
@@ -61,7 +63,17 @@ export class MemoryJobStore implements JobStore {
       result: null, check: null, finalizeUntil: 0,
     });
     this.dedupe.set(dedupeKey, id);
+    this.unqueued.set(id, now.getTime());
     return { kind: 'created', id };
+  }
+
+  async markEnqueued(id: string): Promise<void> {
+    this.unqueued.delete(id);
+  }
+
+  async unqueuedSweeps(olderThanMs: number, limit = 100): Promise<string[]> {
+    const cutoff = Date.now() - olderThanMs;
+    return [...this.unqueued].filter(([, ms]) => ms <= cutoff).sort((a, b) => a[1] - b[1]).slice(0, limit).map(([id]) => id);
   }
 
   private view(s: MemorySweep): SweepRecord {

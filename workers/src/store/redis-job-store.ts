@@ -118,8 +118,8 @@ export class RedisJobStore implements JobStore {
     const recordKey = k.sweep(id);
     const [prefixPart, suffixPart] = [recordKey.slice(0, recordKey.indexOf(id)), recordKey.slice(recordKey.indexOf(id) + id.length)];
     const out = (await this.scripts.bswCreateSweep(
-      6, recordKey, k.ownerSweeps(input.owner), k.ownerActive(input.owner), k.ownerSpec(input.owner, input.specHash),
-      k.events(id), k.branches(id),
+      7, recordKey, k.ownerSweeps(input.owner), k.ownerActive(input.owner), k.ownerSpec(input.owner, input.specHash),
+      k.events(id), k.branches(id), k.unqueued(),
       id, input.fresh ? '1' : '0', input.maxActive ?? 0, now.getTime() * 1000 + (createSeq++ % 1000), prefixPart, suffixPart, this.streamMaxLen,
       JSON.stringify({ status: 'queued', at: record.createdAt }), recordPairs.length / 2, ...recordPairs, ...branchPairs,
     )) as [string, string];
@@ -183,6 +183,14 @@ export class RedisJobStore implements JobStore {
       engine: rec.engine, createdAt: rec.createdAt, startedAt: orNull(rec.startedAt), finishedAt: orNull(rec.finishedAt),
       error: orNull(rec.error), pointsDone, pointsTotal: Number(rec.pointsTotal ?? 0),
     };
+  }
+
+  async markEnqueued(id: string): Promise<void> {
+    await this.redis.zrem(this.keys.unqueued(), id);
+  }
+
+  async unqueuedSweeps(olderThanMs: number, limit = 100): Promise<string[]> {
+    return this.redis.zrangebyscore(this.keys.unqueued(), '-inf', Date.now() - olderThanMs, 'LIMIT', 0, limit);
   }
 
   async getStatus(id: string): Promise<SweepStatus | null> {

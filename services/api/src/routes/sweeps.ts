@@ -83,8 +83,12 @@ export function sweepsRoutes(ctx: ApiContext): FastifyPluginAsyncZod {
       if (out.kind === 'created') {
         try {
           await ctx.queue.enqueue(out.id, plan);
+          await ctx.store.markEnqueued(out.id);
         } catch (err) {
-          await ctx.store.failSweep(out.id, `could not enqueue: ${(err as Error).message}`).catch(() => undefined);
+          // Still listed in the outbox: if the sweep cannot be failed either, the reconciler re-queues it.
+          if (await ctx.store.failSweep(out.id, `could not enqueue: ${(err as Error).message}`).catch(() => false)) {
+            await ctx.store.markEnqueued(out.id).catch(() => undefined);
+          }
           throw err;
         }
       }

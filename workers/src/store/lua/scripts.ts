@@ -6,7 +6,7 @@
  */
 
 /**
- * KEYS: record, ownerSweeps, ownerActive, ownerSpec, events, branches
+ * KEYS: record, ownerSweeps, ownerActive, ownerSpec, events, branches, unqueued
  * ARGV: id, fresh(0|1), maxActive, createdAtMs, recordKeyPrefix, recordKeySuffix, streamMaxLen,
  *       statusEventJson, nRecordPairs, <record field, value>…, <branch index, json>…
  * Returns {'created', id} | {'existing', id} | {'capped', activeCount}.
@@ -39,6 +39,7 @@ redis.call('HSET', KEYS[1], 'dedupeKey', KEYS[4])
 redis.call('ZADD', KEYS[2], ARGV[4], ARGV[1])
 redis.call('SADD', KEYS[3], ARGV[1])
 redis.call('SET', KEYS[4], ARGV[1])
+redis.call('ZADD', KEYS[7], math.floor(tonumber(ARGV[4]) / 1000), ARGV[1])
 redis.call('XADD', KEYS[5], 'MAXLEN', '~', ARGV[7], '*', 'type', 'status', 'data', ARGV[8])
 return {'created', ARGV[1]}
 `;
