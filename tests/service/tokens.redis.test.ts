@@ -172,8 +172,14 @@ describe('rate limit', () => {
       const busy = (await store.create('busy')).secret;
       const calm = (await store.create('calm')).secret;
       const codes: number[] = [];
-      for (let i = 0; i < 7; i++) codes.push((await api.app.inject({ method: 'GET', url: '/v1/engines', headers: bearer(busy) })).statusCode);
+      const remaining: string[] = [];
+      for (let i = 0; i < 7; i++) {
+        const r = await api.app.inject({ method: 'GET', url: '/v1/engines', headers: bearer(busy) });
+        codes.push(r.statusCode);
+        remaining.push(String(r.headers['x-ratelimit-remaining']));
+      }
       expect(codes).toEqual([200, 200, 200, 200, 200, 429, 429]);
+      expect(remaining).toEqual(['4', '3', '2', '1', '0', '0', '0']);
       const limited = await api.app.inject({ method: 'GET', url: '/v1/sweeps', headers: bearer(busy) });
       expect(limited.statusCode).toBe(429);
       expect(limited.json().code).toBe('BSW_ERR_RATE_LIMITED');

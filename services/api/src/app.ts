@@ -4,15 +4,14 @@
  * per-token rate limit (counters in Redis, so every API process shares them).
  */
 import Fastify, { type FastifyInstance } from 'fastify';
-import rateLimit from '@fastify/rate-limit';
 import swagger from '@fastify/swagger';
 import {
   jsonSchemaTransform, jsonSchemaTransformObject, serializerCompiler, validatorCompiler, type ZodTypeProvider,
 } from 'fastify-type-provider-zod';
-import { installAuth } from './auth.js';
+import { installGate } from './gatekeeper.js';
 import type { ApiContext } from './context.js';
 import { errorHandler } from './error-handler.js';
-import { BetasweepApiError, apiError } from './errors.js';
+import { apiError } from './errors.js';
 import { engineRoutes } from './routes/engines.js';
 import { planRoutes } from './routes/plan.js';
 import { serviceRoutes } from './routes/service.js';
@@ -80,20 +79,8 @@ export async function buildApp(ctx: ApiContext, hooks: BuildAppHooks = {}): Prom
   await app.register(dashboardPlugin());
 
   await app.register(async (v1) => {
-    installAuth(v1, ctx.tokens);
-    await v1.register(rateLimit, {
-      global: true,
-      max: ctx.options.rateLimitMax,
-      timeWindow: ctx.options.rateLimitWindowMs,
-      redis: ctx.redis,
-      nameSpace: ctx.store.keys.rateLimitPrefix(),
-      // Runs after the auth hook: count per token id (never the secret itself).
-      keyGenerator: (request) => (request.caller ? `tok:${request.caller.tokenId}` : `ip:${request.ip}`),
-      errorResponseBuilder: (_request, context) => new BetasweepApiError(
-        'BSW_ERR_RATE_LIMITED', [context.max, `${ctx.options.rateLimitWindowMs / 1000} s`, context.after],
-        { retryAfter: Math.max(1, Math.ceil(context.ttl / 1000)) },
-      ),
-    });
+    // Bearer token and per-token rate limit in one Redis script call (gatekeeper.ts).
+    installGate(v1, ctx.redis, { keys: ctx.store.keys, max: ctx.options.rateLimitMax, windowMs: ctx.options.rateLimitWindowMs });
     await v1.register(sweepsRoutes(ctx), { prefix: '/sweeps' });
     await v1.register(planRoutes(ctx), { prefix: '/plan' });
     await v1.register(engineRoutes(ctx), { prefix: '/engines' });

@@ -11,8 +11,8 @@ import { storeKeys } from '../../../workers/src/store/index.js';
 
 export async function openApiDocument(hooks: BuildAppHooks = {}): Promise<Record<string, unknown>> {
   const inert = new Proxy({}, { get: () => { throw new Error('the inert context is only for building the document'); } });
-  // The rate limiter defines its scripts on the connection at registration: give it somewhere to.
-  const redis = { rateLimit: () => undefined, rateLimitRead: () => undefined, defineCommand: () => undefined };
+  // The gate defines its script on the connection at registration: give it somewhere to.
+  const redis = { defineCommand: () => undefined };
   const ctx = {
     redis, tokens: inert, queue: inert, planner: inert,
     store: { keys: storeKeys() },

@@ -40,3 +40,21 @@ export function statusView(r: SweepRecord, now = Date.now()): z.infer<typeof Swe
     check: r.check,
   };
 }
+
+/** The never-changing tail of a status body by the record's plan object (the store caches it per sweep). */
+const fixedJsonByPlan = new WeakMap<object, string>();
+
+/**
+ * The status report serialised: the same body as JSON.stringify(statusView(r)), built from the
+ * changing fields plus the serialised spec, plan and grids kept per sweep — a status poll then
+ * serialises a few hundred bytes instead of the whole record.
+ */
+export function statusJson(r: SweepRecord, now = Date.now()): string {
+  const { plan, betas, times, series, spec, links, ...changing } = statusView(r, now);
+  let fixed = fixedJsonByPlan.get(r.plan);
+  if (fixed === undefined) {
+    fixed = JSON.stringify({ plan, betas, times, series, spec, links }).slice(1);
+    fixedJsonByPlan.set(r.plan, fixed);
+  }
+  return `${JSON.stringify(changing).slice(0, -1)},${fixed}`;
+}

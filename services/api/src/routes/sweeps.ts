@@ -8,7 +8,7 @@ import { validatorCompiler, type FastifyPluginAsyncZod } from 'fastify-type-prov
 import type { FastifySchemaCompiler } from 'fastify';
 import type { SweepResult } from '../../../../shared-types/src/index.js';
 import { SWEEP_ID_PATTERN, decodeCursor, isTerminal, type SweepRecord } from '../../../../workers/src/store/index.js';
-import { callerOf } from '../auth.js';
+import { callerOf } from '../gatekeeper.js';
 import type { ApiContext } from '../context.js';
 import { BetasweepApiError, apiError } from '../errors.js';
 import { errorResponses } from '../schemas/error-body.js';
@@ -16,7 +16,7 @@ import {
   CancelReply, ListQuery, ListReply, ResultQuery, StreamTokenReply, SubmitQuery, SubmitReply, SweepIdParams,
   SweepResultBody, SweepSpecBody, SweepStatusBody,
 } from '../schemas/sweep-bodies.js';
-import { statusView, sweepLinks } from '../sweep-views.js';
+import { statusJson, sweepLinks } from '../sweep-views.js';
 import { sweepCheckRoute } from './sweep-check.js';
 import { sweepEventsRoute } from './sweep-events.js';
 import type { Planner } from '../planner.js';
@@ -112,16 +112,19 @@ export function sweepsRoutes(ctx: ApiContext): FastifyPluginAsyncZod {
     });
 
     app.get('/:id', {
-      // The hot polling route: serialize without re-validating (the body is built from
-      // validated records by statusView; the OpenAPI test checks real bodies against the schema).
-      serializerCompiler: () => (data) => JSON.stringify(data),
+      // The hot polling route: the body is serialised by statusJson (from validated records,
+      // the fixed part kept per sweep); the OpenAPI test checks real bodies against the schema.
+      serializerCompiler: () => (data) => (typeof data === 'string' ? data : JSON.stringify(data)),
       schema: {
         summary: 'Status of one sweep: per-branch progress, timings, plan',
         tags: ['sweeps'],
         params: SweepIdParams,
         response: { 200: SweepStatusBody, ...errorResponses(400, 401, 404, 429) },
       },
-    }, async (request) => statusView(await ownedSweep(ctx, request, request.params.id)));
+    }, async (request, reply) => {
+      const body = statusJson(await ownedSweep(ctx, request, request.params.id));
+      return reply.header('content-type', 'application/json; charset=utf-8').send(body as never);
+    });
 
     const sendResult = async (request: FastifyRequest, id: string, format: 'json' | 'csv') => {
       const record = await ownedSweep(ctx, request, id);
