@@ -62,7 +62,7 @@ describe('planTypical', () => {
       // tables (16 B, 10 groups each) per entry, and records of 100 times × primitives × 8 B
       // for at most MAX_TYPICAL_SAMPLES samples.
       const np = typicalLayout(s).layout.primitives.length;
-      expect(np).toBe(29); // 10 X_i, 9 Z_iZ_i+1 and the 10 Z_i factors the pair mean lists (not measured)
+      expect(np).toBe(19); // 10 X_i and 9 Z_iZ_i+1 (a plain pair mean lists no single-site factors)
       expect(p.memoryBytes).toBeLessThanOrEqual(vectors + MAX_BLOCK_TIMES * 16 * 1024 + 2 * 8 * 1024 + 20 * 16 * 1024 + MAX_TYPICAL_SAMPLES * (8 * 100 * np + 256));
       expect(p.seconds).toBeGreaterThan(0);
       expect(p.reason).toMatch(/planned samples per β/);
