@@ -4,13 +4,10 @@
  */
 import type { ApiClient } from './api-client.js';
 import { ClientError } from './api-client.js';
+import { parseSseChunk, type SweepEvent } from '../../../../shared-types/src/sse.js';
 
-/** One event of the stream. */
-export interface SweepEvent {
-  id: string | null;
-  type: string;
-  data: string;
-}
+export type { SweepEvent } from '../../../../shared-types/src/sse.js';
+export { parseSseChunk } from '../../../../shared-types/src/sse.js';
 
 /** Options of {@link readSweepEvents}. */
 export interface ReadEventsOptions {
@@ -19,29 +16,6 @@ export interface ReadEventsOptions {
   /** Reconnect attempts after a dropped connection. @defaultValue 10 */
   maxReconnects?: number;
   signal?: AbortSignal;
-}
-
-/** Parses SSE text blocks; returns complete events and the unparsed rest. */
-export function parseSseChunk(buffer: string): { events: SweepEvent[]; rest: string } {
-  const events: SweepEvent[] = [];
-  const blocks = buffer.split(/\r?\n\r?\n/);
-  const rest = blocks.pop() ?? '';
-  for (const block of blocks) {
-    let id: string | null = null;
-    let type = 'message';
-    const data: string[] = [];
-    for (const line of block.split(/\r?\n/)) {
-      if (!line || line.startsWith(':')) continue;
-      const colon = line.indexOf(':');
-      const field = colon < 0 ? line : line.slice(0, colon);
-      const value = colon < 0 ? '' : line.slice(colon + 1).replace(/^ /, '');
-      if (field === 'id') id = value;
-      else if (field === 'event') type = value;
-      else if (field === 'data') data.push(value);
-    }
-    if (data.length || type !== 'message') events.push({ id, type, data: data.join('\n') });
-  }
-  return { events, rest };
 }
 
 export async function* readSweepEvents(client: ApiClient, sweepId: string, options: ReadEventsOptions = {}): AsyncGenerator<SweepEvent> {
