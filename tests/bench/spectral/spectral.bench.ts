@@ -1,29 +1,28 @@
 /**
- * Benchmark of the spectral path (workers/src/engines/spectral, workers/src/linalg/hermitian-*):
+ * Benchmark of the spectral path (workers/src/engines/spectral, workers/src/symmetry,
+ * workers/src/linalg/hermitian-*):
  * 1. hermitianEigen, complex and real fast path, n = 64 … 512 (median of 3 after a warm-up);
  *    flop counts 16·n³ (complex) and 6·n³ (real) as in its header; the residual of the result
  *    is checked, so nothing is optimised away and a broken build fails the run.
- * 2. Side by side on one N = 10 quench (periodic XXZ ring, Δ 0.5 → 2, hz 0.1 in H0, 2 β,
- *    21 times up to t = 5; Z per site, connected nearest ZZ, E:h1): spectral with magnetisation
- *    blocks, spectral on the whole space, and the exact engine (Chebyshev on the 4^N doubled
- *    state). One timed run each (these take seconds to minutes); max |Δ| against exact;
- *    peak RSS of the process so far. Tolerance 5e-8: at d = 1024 the spectral a-priori error
- *    bound (plan-spectral.ts) is ≈ 1.9e-8, so the default 1e-8 is refused without blocks.
- * 3. Spectral on an N = 10 transverse-field Ising quench (no magnetisation symmetry: one real
- *    1024 × 1024 block).
- * Inputs are built from a seeded RNG (1) or fixed specs (2, 3) outside the timed regions.
+ * 2. Side by side on one N = 10 quench (periodic XXZ ring, spectral-scenario.ts): spectral with
+ *    all symmetries (magnetisation, translations, inversion), with translations, with
+ *    magnetisation only, on the whole space, and the exact engine (Chebyshev on the 4^N
+ *    doubled state); max |Δ| of every point against exact. The N = 10 transverse-field Ising
+ *    ring (no magnetisation) with all symmetries and without.
+ * 3. The largest rings the spectral engine now runs: XXZ N = 14 and 16 with all symmetries.
+ * Every engine scenario runs once in its own child process (these take seconds to minutes),
+ * so its peak RSS (VmHWM) is its own; the 1-minute load average before and after is recorded
+ * (the machine is shared: wall times scale with it).
  *
- * Run: npx tsx tests/bench/spectral/spectral.bench.ts
+ * Run: npx tsx tests/bench/spectral/spectral.bench.ts   (or npm run bench -- spectral)
  */
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
-import type { SweepSpec } from '../../../shared-types/src/index.js';
-import { SweepSpec as SweepSpecSchema } from '../../../shared-types/src/index.js';
-import type { Engine } from '../../../workers/src/engines/engine.js';
-import { ExactEngine } from '../../../workers/src/engines/exact/index.js';
-import { SpectralEngine } from '../../../workers/src/engines/spectral/index.js';
 import { createHermitianEigenWorkspace, hermitianEigen } from '../../../workers/src/linalg/hermitian-eigen.js';
 import type { SweepPoint } from '../../../shared-types/src/index.js';
-import { type BenchRecord, median, peakRssMb, printRecords, seededRandom, timeIt } from '../bench-record.js';
+import { type BenchRecord, median, printRecords, seededRandom, timeIt } from '../bench-record.js';
+import type { ScenarioResult } from './spectral-scenario.js';
 
 const EIGEN_SIZES = [64, 128, 256, 512];
 
@@ -60,22 +59,13 @@ function eigen(n: number, real: boolean): BenchRecord {
   return { label: `hermitian-eigen:${real ? 'real' : 'complex'}:size=${n}`, medianMs: ms, extra: { gflops: flops / (ms * 1e6), residual: res } };
 }
 
-interface Run { points: SweepPoint[]; ms: number; extra: Record<string, unknown> }
-
-async function runEngine(engine: Engine, s: SweepSpec): Promise<Run> {
-  const points: SweepPoint[] = [];
-  let extra: Record<string, unknown> = {};
-  const plan = engine.plan(s);
-  if (!plan.feasible) throw new Error(`${engine.name} refused: ${plan.refusal?.message}`);
-  const t0 = performance.now();
-  for (const branch of plan.branches) {
-    await engine.runBranch(s, branch, {
-      thermo: () => undefined,
-      point: (p) => points.push(p),
-      diagnostics: (d) => { extra = d.extra; },
-    });
-  }
-  return { points, ms: performance.now() - t0, extra: { ...extra, planSeconds: plan.seconds } };
+/** Runs one scenario in a child process (see spectral-scenario.ts). */
+function scenario(engine: string, model: 'xxz' | 'ising', n: number): ScenarioResult {
+  const file = join(import.meta.dirname, 'spectral-scenario.ts');
+  const r = spawnSync(process.execPath, ['--import', 'tsx', file, engine, model, String(n)], { encoding: 'utf8', maxBuffer: 256 * 2 ** 20 });
+  const line = r.stdout.split('\n').find((l) => l.startsWith('@@scenario '));
+  if (r.status !== 0 || !line) throw new Error(`scenario ${engine} ${model}-${n} failed: ${r.stderr.trim().split('\n').slice(-3).join(' | ')}`);
+  return JSON.parse(line.slice('@@scenario '.length)) as ScenarioResult;
 }
 
 function maxDiff(a: SweepPoint[], b: SweepPoint[]): number {
@@ -87,37 +77,35 @@ function maxDiff(a: SweepPoint[], b: SweepPoint[]): number {
   return m;
 }
 
-/** Eigen kernels at several sizes, then the N = 10 engines side by side. */
+const KEYS = ['symmetry', 'jointBlocks', 'largestBlock', 'basisSeconds', 'decomposeSeconds', 'quenchBasisSeconds', 'h1BackwardError', 'matvecs'];
+
+function record(engine: string, model: string, n: number, r: ScenarioResult, extra: Record<string, number | string> = {}): BenchRecord {
+  const picked = Object.fromEntries(KEYS.filter((k) => k in r.extra).map((k) => [k, r.extra[k] as number | string]));
+  return {
+    label: `engine:${engine}${model === 'xxz' ? '' : `-${model}`}:size=${n}`,
+    medianMs: r.ms,
+    extra: { ...picked, planSeconds: r.planSeconds, peakRssMb: r.peakRssMb, load1Before: r.loadBefore, load1After: r.loadAfter, ...extra },
+  };
+}
+
+/** Eigen kernels at several sizes, then the engine scenarios side by side. */
 export async function run(): Promise<BenchRecord[]> {
   const records: BenchRecord[] = [];
   for (const n of EIGEN_SIZES) {
     records.push(eigen(n, false));
     records.push(eigen(n, true));
   }
-  const xxz = SweepSpecSchema.parse({
-    lattice: { kind: 'chain', length: 10, boundary: 'periodic' },
-    h0: { model: 'xxz', J: 1, delta: 0.5, hz: 0.1 }, h1: { model: 'xxz', J: 1, delta: 2 },
-    betas: [0.5, 2], times: { start: 0, stop: 5, count: 21 },
-    observables: [{ kind: 'site', pauli: 'Z', perSite: true }, { kind: 'pair', paulis: 'ZZ', connected: true }, { kind: 'energy', of: 'h1' }],
-    // The whole-space spectral plan's a-priori bound at d = 1024 is ≈ 1.9e-8 (> the default 1e-8).
-    tolerance: 5e-8,
-  });
-  const blocks = await runEngine(new SpectralEngine(), xxz);
-  const whole = await runEngine(new SpectralEngine({ symmetry: 'none' }), xxz);
-  const exact = await runEngine(new ExactEngine(), xxz);
-  const pick = (x: Record<string, unknown>, keys: string[]) => Object.fromEntries(keys.filter((k) => k in x).map((k) => [k, x[k] as number | string]));
-  const keys = ['largestBlock', 'jointBlocks', 'decomposeSeconds', 'quenchBasisSeconds', 'h1BackwardError', 'planSeconds', 'matvecs'];
-  records.push({ label: 'engine:spectral-magnetisation:size=10', medianMs: blocks.ms, extra: { ...pick(blocks.extra, keys), maxDiffVsExact: maxDiff(blocks.points, exact.points), peakRssMb: peakRssMb() } });
-  records.push({ label: 'engine:spectral-whole-space:size=10', medianMs: whole.ms, extra: { ...pick(whole.extra, keys), maxDiffVsExact: maxDiff(whole.points, exact.points), peakRssMb: peakRssMb() } });
-  records.push({ label: 'engine:exact:size=10', medianMs: exact.ms, extra: { ...pick(exact.extra, keys), speedupOfSpectralBlocks: exact.ms / blocks.ms, peakRssMb: peakRssMb() } });
-  const ising = SweepSpecSchema.parse({
-    lattice: { kind: 'chain', length: 10, boundary: 'periodic' },
-    h0: { model: 'ising', J: 1, hx: 0.5 }, h1: { model: 'ising', J: 1, hx: 1.5 },
-    betas: [0.5, 2], times: { start: 0, stop: 5, count: 21 },
-    observables: [{ kind: 'site', pauli: 'X', perSite: true }, { kind: 'pair', paulis: 'ZZ' }, { kind: 'energy', of: 'h1' }],
-  });
-  const tfim = await runEngine(new SpectralEngine(), ising);
-  records.push({ label: 'engine:spectral-ising:size=10', medianMs: tfim.ms, extra: { ...pick(tfim.extra, keys), peakRssMb: peakRssMb() } });
+  const exact = scenario('exact', 'xxz', 10);
+  for (const engine of ['spectral-all', 'spectral-translations', 'spectral-magnetisation', 'spectral-none']) {
+    const r = scenario(engine, 'xxz', 10);
+    records.push(record(engine, 'xxz', 10, r, { maxDiffVsExact: maxDiff(r.points, exact.points), speedupVsExact: exact.ms / r.ms }));
+  }
+  records.push(record('exact', 'xxz', 10, exact));
+  const isingAll = scenario('spectral-all', 'ising', 10);
+  const isingNone = scenario('spectral-none', 'ising', 10);
+  records.push(record('spectral-all', 'ising', 10, isingAll, { maxDiffVsWholeSpace: maxDiff(isingAll.points, isingNone.points) }));
+  records.push(record('spectral-none', 'ising', 10, isingNone));
+  for (const n of [14, 16]) records.push(record('spectral-all', 'xxz', n, scenario('spectral-all', 'xxz', n)));
   return records;
 }
 

@@ -182,7 +182,13 @@ describe('SpectralEngine', () => {
       const out = await collect(engine, s, [0, 1]);
       for (const d of out.diagnostics) {
         const x = d.extra;
-        expect(x.symmetry).toBe('magnetisation');
+        expect(x.symmetry).toBe('magnetisation + translation a1 (order 6) + reflection inversion');
+        expect(x.symmetryDropped).toBe('');
+        // Vectors per momentum (character counting, dim_k = (1/6)·Σ_a e^{2πika/6}·2^{gcd(a,6)}):
+        // k = 0: 14, k = 3: 10 (both split by parity), k = 1: 9 and k = 2: 11, which also stand
+        // for k = 5 and 4 — 14 + 10 + 9 + 11 = 44 kept of 64.
+        expect(x.basisVectors).toBe(44);
+        expect(x.mirroredBlocks as number).toBeGreaterThan(0);
         expect(x.h0BackwardError as number).toBeLessThan(1e-12);
         expect(x.h1BackwardError as number).toBeLessThan(1e-12);
         expect(d.propagatorErrorBound).toBeGreaterThan(0);
@@ -226,7 +232,7 @@ describe('SpectralEngine', () => {
         ['Z:avg', 'Z@0', 'Z@1', 'Z@2', 'Y:avg', 'Y@0', 'Y@1', 'Y@2', 'XY:pairs', 'E:h1']);
       const out = await collect(engine, s, []);
       expect(out.points).toHaveLength(0);
-      expect(() => new SpectralEngine({ symmetry: 'momentum' as never })).toThrow(RangeError);
+      expect(() => new SpectralEngine({ symmetry: 'momentum' as never })).toThrow(/one of none, magnetisation, translations, all/);
     });
   });
 });

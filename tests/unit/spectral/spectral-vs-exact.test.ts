@@ -22,46 +22,12 @@ import { ExactEngine } from '../../../workers/src/engines/exact/index.js';
 import { SpectralEngine } from '../../../workers/src/engines/spectral/index.js';
 import { collect, seriesOf, spec } from '../exact/collect.js';
 import type { Collected } from '../exact/collect.js';
+import { compareRuns, motion } from './compare-runs.js';
 
 const AGREEMENT = 1e-10;
 /** Observed figures, printed once for the report. */
 const observed: Array<{ symmetry: string; thermo: number; points: number; maxError: number }> = [];
 const exact = new ExactEngine();
-
-/** Largest |spectral − exact| over thermodynamics and points (points matched by indices). */
-function compare(a: Collected, b: Collected): { thermo: number; points: number; maxError: number } {
-  let thermo = 0;
-  let maxError = 0;
-  for (const r of a.thermo) {
-    const q = b.thermo.find((x) => x.betaIndex === r.betaIndex)!;
-    for (const k of ['lnZ', 'energy', 'heatCapacity', 'entropy'] as const) {
-      const diff = Math.abs(r[k] - q[k]);
-      thermo = Math.max(thermo, diff);
-      expect(diff).toBeLessThanOrEqual(r.errors[k] + q.errors[k]);
-      maxError = Math.max(maxError, r.errors[k]);
-    }
-    if (r.freeEnergy !== null) thermo = Math.max(thermo, Math.abs(r.freeEnergy - q.freeEnergy!));
-  }
-  let points = 0;
-  expect(a.points).toHaveLength(b.points.length);
-  for (const p of a.points) {
-    const q = b.points.find((x) => x.betaIndex === p.betaIndex && x.timeIndex === p.timeIndex)!;
-    p.values.forEach((v, k) => {
-      const diff = Math.abs(v - q.values[k]);
-      points = Math.max(points, diff);
-      expect(diff).toBeLessThanOrEqual(p.errors[k] + q.errors[k]);
-      maxError = Math.max(maxError, p.errors[k]);
-    });
-  }
-  return { thermo, points, maxError };
-}
-
-/** Largest change of series k over the time grid at the last β (the quench must move things). */
-function motion(out: Collected, k: number): number {
-  const last = Math.max(...out.points.map((p) => p.betaIndex));
-  const vals = out.points.filter((p) => p.betaIndex === last).map((p) => p.values[k]);
-  return Math.max(...vals) - Math.min(...vals);
-}
 
 async function check(input: SweepSpecInput, moving: string[]): Promise<Record<string, Collected>> {
   const s = spec({ tolerance: 1e-12, ...input });
@@ -71,7 +37,7 @@ async function check(input: SweepSpecInput, moving: string[]): Promise<Record<st
   for (const symmetry of ['magnetisation', 'none'] as const) {
     const engine = new SpectralEngine({ symmetry });
     const out = await collect(engine, s, betas);
-    const d = compare(out, ref);
+    const d = compareRuns(out, ref);
     expect(d.thermo).toBeLessThanOrEqual(AGREEMENT);
     expect(d.points).toBeLessThanOrEqual(AGREEMENT);
     expect(d.maxError).toBeLessThanOrEqual(1e-9);

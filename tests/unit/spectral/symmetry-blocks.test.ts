@@ -1,12 +1,13 @@
 /**
- * Symmetry blocks (workers/src/symmetry) and the block matrices built from them
- * (engines/spectral/dense-block.ts, apply-block.ts).
+ * Magnetisation blocks (workers/src/symmetry with the trivial spatial group, i.e. the
+ * computational basis) and the block matrices built from them (symmetry/block-matrix.ts,
+ * engines/spectral/dense-block.ts, apply-block.ts).
  * - conservesMagnetisation decides by the Pauli algebra: sums conserve Σ Z_i even when no single
  *   term does (XX + YY; the antisymmetric X Y − Y X), and single terms that flip spins do not.
  * - popcount sectors have the binomial sizes C(N, k).
  * - dense blocks assembled side by side equal the full matrix obtained by applying the matrix-free
- *   kernel (applyOperatorAffine) to basis vectors, entry for entry (exact: the same table values
- *   are copied, no arithmetic besides the sums of equal-mask terms done by compileOperator).
+ *   kernel (applyOperatorAffine) to basis vectors, entry for entry (exact: both sum the terms of
+ *   one flip mask in the same order, and the trivial group multiplies by exactly 1).
  */
 import { describe, expect, it } from 'vitest';
 import { applyBlock } from '../../../workers/src/engines/spectral/apply-block.js';
@@ -16,13 +17,21 @@ import { buildHamiltonian } from '../../../workers/src/physics/build-hamiltonian
 import { buildLattice } from '../../../workers/src/lattice/build-lattice.js';
 import type { PauliSum } from '../../../workers/src/physics/types.js';
 import {
-  conservesMagnetisation, joinPartitions, partitionByLabel, symmetryBlocks,
+  analyseSymmetry, blockMatrix, conservesMagnetisation, groupSectors, partitionByLabel, sectorBasis, sectorPartition, trivialGroup,
 } from '../../../workers/src/symmetry/index.js';
+import type { BasisPartition, SectorBasis, SymmetryMode } from '../../../workers/src/symmetry/index.js';
 import { seededRandom } from '../../bench/bench-record.js';
 
 const chain = (n: number) => buildLattice({ kind: 'chain', length: n, boundary: 'open' });
 const words = (n: number, terms: Array<[number, string]>): PauliSum =>
   buildHamiltonian({ model: 'pauli-sum', terms: terms.map(([weight, word]) => ({ weight, word })) }, chain(n));
+/** The computational basis of n sites and its blocks under `mode` for H0 = H1 = h. */
+function blocks(h: PauliSum, mode: SymmetryMode): { basis: SectorBasis; p: BasisPartition } {
+  const a = analyseSymmetry({ kind: 'chain', length: h.sites, boundary: 'open' }, h, h, mode);
+  const basis = sectorBasis(a.group, a.sectors);
+  return { basis, p: sectorPartition(basis, a.magnetisationJoint, a.label) };
+}
+const computational = (n: number) => sectorBasis(trivialGroup(n), groupSectors(trivialGroup(n)));
 
 describe('conservesMagnetisation', () => {
   it('holds for the XXZ chain with a field and for Z-only Hamiltonians', () => {
@@ -50,35 +59,23 @@ describe('conservesMagnetisation', () => {
   });
 });
 
-describe('symmetryBlocks and joinPartitions', () => {
+describe('magnetisation blocks', () => {
   it('splits 2^N states into popcount sectors of sizes C(N, k), with consistent position tables', () => {
-    const p = symmetryBlocks(buildHamiltonian({ model: 'xxz', J: 1, delta: 1, hz: 0 }, chain(6)), 'magnetisation');
+    const { basis, p } = blocks(buildHamiltonian({ model: 'xxz', J: 1, delta: 1, hz: 0 }, chain(6)), 'magnetisation');
     expect(p.symmetry).toBe('magnetisation');
-    expect(p.blocks.map((b) => b.length)).toEqual([1, 6, 15, 20, 15, 6, 1]);
-    p.blocks.forEach((b, k) => b.forEach((s, i) => {
-      expect(p.blockOf[s]).toBe(k);
-      expect(p.position[s]).toBe(i);
+    expect(basis.count).toBe(64);
+    expect(p.blocks.map((b) => b.length).sort((x, y) => x - y)).toEqual([1, 1, 6, 6, 15, 15, 20]);
+    p.blocks.forEach((b, k) => b.forEach((q, i) => {
+      expect(p.blockOf[q]).toBe(k);
+      expect(p.position[q]).toBe(i);
+      expect(basis.rep[q]).toBe(q); // the trivial group: vector q is basis state q
     }));
   });
 
   it('falls back to one block when the symmetry is absent or not asked for', () => {
     const ising = buildHamiltonian({ model: 'ising', J: 1, hx: 1, hz: 0 }, chain(4));
-    expect(symmetryBlocks(ising, 'magnetisation').blocks).toHaveLength(1);
-    expect(symmetryBlocks(buildHamiltonian({ model: 'xxz', J: 1, delta: 1, hz: 0 }, chain(4)), 'none').blocks).toHaveLength(1);
-  });
-
-  it('joins partitions into their finest common coarsening', () => {
-    const sectors = partitionByLabel(8, (s) => (s & 1) + ((s >> 1) & 1) + ((s >> 2) & 1), 'magnetisation');
-    const whole = partitionByLabel(8, () => 0, 'none');
-    expect(joinPartitions(sectors, whole).blocks).toHaveLength(1);
-    expect(joinPartitions(sectors, sectors).blocks.map((b) => Array.from(b))).toEqual(sectors.blocks.map((b) => Array.from(b)));
-    // {0,1},{2,3},… joined with {1,2},{3,4},… chains everything; with {0},{1},… it stays pairs.
-    const pairs = partitionByLabel(8, (s) => s >> 1, 'a');
-    const shifted = partitionByLabel(8, (s) => ((s + 1) >> 1) % 4, 'b');
-    expect(joinPartitions(pairs, shifted).blocks).toHaveLength(1);
-    expect(joinPartitions(pairs, partitionByLabel(8, (s) => s, 'c')).blocks.map((b) => Array.from(b)))
-      .toEqual([[0, 1], [2, 3], [4, 5], [6, 7]]);
-    expect(() => joinPartitions(pairs, partitionByLabel(4, () => 0, 'd'))).toThrow(RangeError);
+    expect(blocks(ising, 'magnetisation').p.blocks).toHaveLength(1);
+    expect(blocks(buildHamiltonian({ model: 'xxz', J: 1, delta: 1, hz: 0 }, chain(4)), 'none').p.blocks).toHaveLength(1);
   });
 });
 
@@ -92,7 +89,7 @@ describe('denseBlock and applyBlock', () => {
 
   it('assembles, block by block, exactly the matrix the matrix-free kernel applies', () => {
     expect(conservesMagnetisation(h)).toBe(true);
-    const p = symmetryBlocks(h, 'magnetisation');
+    const { basis, p } = blocks(h, 'magnetisation');
     const dim = 32;
     const full = new Float64Array(2 * dim * dim);
     const e = new Float64Array(2 * dim * dim);
@@ -102,7 +99,7 @@ describe('denseBlock and applyBlock', () => {
     p.blocks.forEach((states, b) => {
       const d = states.length;
       const m = new Float64Array(2 * d * d);
-      denseBlock(op, p, b, m);
+      denseBlock(blockMatrix(basis, p, b, h.terms, true)!, m);
       for (let j = 0; j < d; j++) for (let i = 0; i < d; i++) {
         const q = 2 * (states[i] + states[j] * dim);
         expect(m[2 * (i + j * d)]).toBe(full[q]);
@@ -115,16 +112,18 @@ describe('denseBlock and applyBlock', () => {
   });
 
   it('applies a block to several vectors as the dense block does (to 1e-14)', () => {
-    const p = symmetryBlocks(h, 'magnetisation');
-    const b = 2; // popcount-2 sector, 10 states
+    const { basis, p } = blocks(h, 'magnetisation');
+    const b = p.blockOf[3]; // popcount-2 sector, 10 states
     const d = p.blocks[b].length;
+    expect(d).toBe(10);
+    const sparse = blockMatrix(basis, p, b, h.terms, true)!;
     const m = new Float64Array(2 * d * d);
-    denseBlock(op, p, b, m);
+    denseBlock(sparse, m);
     const r = seededRandom(4);
     const cols = 3;
     const x = Float64Array.from({ length: 2 * d * cols }, () => r() - 0.5);
     const y = new Float64Array(2 * d * cols);
-    applyBlock(op, p, b, x, y, cols);
+    applyBlock(sparse, x, y, cols);
     for (let c = 0; c < cols; c++) for (let i = 0; i < d; i++) {
       let sr = 0, si = 0;
       for (let j = 0; j < d; j++) {
@@ -137,10 +136,19 @@ describe('denseBlock and applyBlock', () => {
     }
   });
 
-  it('refuses a partition that is not a symmetry of the operator', () => {
-    const ising = compileOperator(buildHamiltonian({ model: 'ising', J: 1, hx: 1, hz: 0 }, chain(3)));
+  it('refuses a partition that is not a symmetry of the operator, and a short output buffer', () => {
+    const ising = buildHamiltonian({ model: 'ising', J: 1, hx: 1, hz: 0 }, chain(3));
     const sectors = partitionByLabel(8, (s) => (s & 1) + ((s >> 1) & 1) + ((s >> 2) & 1), 'magnetisation');
-    expect(() => denseBlock(ising, sectors, 1, new Float64Array(18))).toThrow(/not a symmetry/);
-    expect(() => denseBlock(ising, sectors, 1, new Float64Array(4))).toThrow(/out must hold/);
+    expect(() => blockMatrix(computational(3), sectors, 1, ising.terms, true)).toThrow(/not a symmetry/);
+    const diagonal = blockMatrix(computational(3), sectors, 1, [{ x: 0, z: 1, weight: 1 }], true)!;
+    expect(() => denseBlock(diagonal, new Float64Array(4))).toThrow(/out must hold/);
+  });
+
+  it('drops entries into other blocks for observables, and returns null for a block without entries', () => {
+    const sectors = partitionByLabel(8, (s) => (s & 1) + ((s >> 1) & 1) + ((s >> 2) & 1), 'magnetisation');
+    expect(blockMatrix(computational(3), sectors, 1, [{ x: 1, z: 0, weight: 1 }], false)).toBeNull(); // X0
+    const xx = blockMatrix(computational(3), sectors, 1, [{ x: 3, z: 0, weight: 1 }, { x: 1, z: 0, weight: 1 }], false)!;
+    expect(Array.from(xx.re)).toEqual([1, 1]); // X0 X1 swaps |001⟩ and |010⟩; X0 leaves the sector
+    expect(xx.real).toBe(true);
   });
 });

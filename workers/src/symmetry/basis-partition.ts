@@ -1,30 +1,31 @@
 /**
- * BasisPartition — a split of the 2^N computational basis states into blocks that a set of
+ * BasisPartition — a split of the vectors of a basis (the computational basis states, or the
+ * symmetry-adapted vectors of sector-basis.ts, numbered 0..dim−1) into blocks that a set of
  * operators leaves invariant (block-diagonal operators), and partitionByLabel, which builds one
- * from a label per basis state (states with equal labels share a block).
+ * from a label per basis vector (vectors with equal labels share a block).
  *
- * Blocks are ordered by their smallest state; states inside a block ascend. `blockOf[s]` and
- * `position[s]` map a basis state to its block and to its index inside the block, so a
- * block-local vector entry i stands for the state blocks[b][i].
+ * Blocks are ordered by their smallest vector; vectors inside a block ascend. `blockOf[q]` and
+ * `position[q]` map a basis vector to its block and to its index inside the block, so a
+ * block-local entry i stands for the basis vector blocks[b][i].
  * Cost: O(dim) time, 12·dim bytes (three Int32 tables).
  */
 
-/** A partition of the basis states {0, …, dim − 1} into invariant blocks. */
+/** A partition of the basis vectors {0, …, dim − 1} into invariant blocks. */
 export interface BasisPartition {
-  /** Number of basis states (2^N). */
+  /** Number of basis vectors. */
   readonly dim: number;
-  /** The blocks: ascending basis states; blocks ordered by their first state. */
+  /** The blocks: ascending vector indices; blocks ordered by their first vector. */
   readonly blocks: readonly Int32Array[];
-  /** Block index of each basis state. */
+  /** Block index of each vector. */
   readonly blockOf: Int32Array;
-  /** Index of each basis state inside its block. */
+  /** Index of each vector inside its block. */
   readonly position: Int32Array;
-  /** Which symmetry made the blocks, for reports: 'none', 'magnetisation', 'joint'. */
+  /** Which symmetries made the blocks, for reports (e.g. 'magnetisation + translation a1 (order 8)'). */
   readonly symmetry: string;
 }
 
 /**
- * The partition grouping basis states s with equal `label(s)` (any integers).
+ * The partition grouping basis vectors q with equal `label(q)` (any integers).
  * @throws RangeError if dim is not a positive integer or a label is not an integer.
  */
 export function partitionByLabel(dim: number, label: (s: number) => number, symmetry: string): BasisPartition {

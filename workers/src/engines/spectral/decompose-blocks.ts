@@ -1,9 +1,11 @@
 /**
- * decomposeBlocks — H = ⊕_B W_B·diag(λ_B)·W_Bᴴ block by block over a symmetry partition, with
- * an a-posteriori backward error from the computed residuals.
+ * decomposeBlocks — H = ⊕_B W_B·diag(λ_B)·W_Bᴴ block by block over a partition of a
+ * symmetry-adapted basis (symmetry/sector-basis.ts; the computational basis when no spatial
+ * symmetry is used), with an a-posteriori backward error from the computed residuals.
  *
- * Per block (d states): denseBlock → hermitianEigen (complex, or its real fast path) →
- *   residuals  r_k = ‖H_B·w_k − λ_k·w_k‖₂          (applyBlock, matrix-free: 8·d²·(G + 1) flops)
+ * Per block (d vectors): blockMatrix (sparse, strict: H must not couple blocks) → denseBlock →
+ * hermitianEigen (complex, or its real fast path) →
+ *   residuals  r_k = ‖H_B·w_k − λ_k·w_k‖₂          (applyBlock on the sparse block: 8·nnz·d flops)
  *   δ_B = ‖W_BᴴW_B − I‖_F                           (complexAdjointProduct, packed: 4·d³ flops;
  *                                                     realTransposeProduct, d³, for real blocks)
  * Backward error. Let R = HW − WΛ and WᴴW = I + Δ with δ = ‖Δ‖₂ < 1. The unitary polar factor
@@ -13,20 +15,22 @@
  * so the computed eigenvalues are those of a Hermitian H + E (each within ‖E‖ of a true one,
  * Weyl) and e^{−iΛt} on W̃ is exactly e^{−i(H+E)t}. With c the midpoint of the block's computed
  * spectrum both norms are its half-width h_B (‖H_B − c‖₂ ≤ h_B + ‖E‖, a second-order
- * correction), and blocks are independent, so
+ * correction), and blocks are independent (the symmetry-adapted basis is orthonormal, so a
+ * block-diagonal E in it has the norm of its largest block), so
  *   η = max_B (‖R_B‖_F + 2·h_B·δ_B)
  * is reported as the backward error (first order in δ; rigorous up to the rounding in forming R
  * and Δ themselves, which is of the same tiny order).
  *
  * Cost: ≈ 16·d³ (complex) or ≈ 6·d³ (real) per block for the eigensolver + 4·d³ for δ_B.
  * Memory: the eigenvectors of every block (16·Σd² bytes, + 8·d² for a compact real copy when
- * the real fast path ran) + scratch of 3 dense blocks of the
- * largest size. The event loop gets a turn (and the abort signal is checked) between blocks.
+ * the real fast path ran) + scratch of 3 dense blocks of the largest size. The event loop gets
+ * a turn (and the abort signal is checked) between blocks.
  */
-import type { CompiledOperator } from '../../kernels/index.js';
 import { complexAdjointProduct } from '../../linalg/complex-adjoint-product.js';
 import { createHermitianEigenWorkspace, hermitianEigen } from '../../linalg/hermitian-eigen.js';
-import type { BasisPartition } from '../../symmetry/index.js';
+import type { PauliTermMask } from '../../physics/types.js';
+import { blockMatrix } from '../../symmetry/index.js';
+import type { BasisPartition, SectorBasis } from '../../symmetry/index.js';
 import { applyBlock } from './apply-block.js';
 import { realTransposeProduct } from './real-transpose-product.js';
 import { denseBlock } from './dense-block.js';
@@ -34,7 +38,7 @@ import { yieldIfDue } from './yield-if-due.js';
 
 /** The eigen-decomposition of one block. */
 export interface BlockEigen {
-  /** Basis states of the block (ascending); row i of `vectors` is state states[i]. */
+  /** Basis vectors of the block (ascending); row i of `vectors` is basis vector states[i]. */
   readonly states: Int32Array;
   /** Eigenvalues λ_k, ascending. */
   readonly values: Float64Array;
@@ -64,8 +68,6 @@ export interface Decomposition {
   readonly orthogonality: number;
   /** max_B,k r_k. */
   readonly maxResidual: number;
-  /** a = Σ|w| over non-identity terms (bound on ‖H − c‖₂). */
-  readonly normBound: number;
   /** Size of the largest block. */
   readonly largestBlock: number;
   /** Number of blocks that took the real fast path. */
@@ -80,9 +82,12 @@ export interface DecomposeOptions {
   readonly keepGram?: boolean;
 }
 
-/** Decomposes `op` block by block (see file header). Rejects with an AbortError when aborted. */
+/**
+ * Decomposes Σ terms block by block over `partition` of `basis` (see file header). Rejects with
+ * an AbortError when aborted, and with a RangeError when the terms couple two blocks.
+ */
 export async function decomposeBlocks(
-  op: CompiledOperator, partition: BasisPartition, options: DecomposeOptions = {},
+  terms: readonly PauliTermMask[], basis: SectorBasis, partition: BasisPartition, options: DecomposeOptions = {},
 ): Promise<Decomposition> {
   const { signal, keepGram = false } = options;
   let largest = 0;
@@ -95,18 +100,18 @@ export async function decomposeBlocks(
   let orthogonality = 0;
   let maxResidual = 0;
   let realBlocks = 0;
-  const a = op.normBound;
   for (let b = 0; b < partition.blocks.length; b++) {
     await yieldIfDue(signal);
     const states = partition.blocks[b];
     const d = states.length;
-    denseBlock(op, partition, b, dense);
+    const sparse = blockMatrix(basis, partition, b, terms, true) ?? emptyBlock(d);
+    denseBlock(sparse, dense);
     const values = new Float64Array(d);
     const vectors = new Float64Array(2 * d * d);
     const rep = hermitianEigen(d, dense, values, vectors, {}, ws);
     if (rep.real) realBlocks++;
     // Residuals r_k = ‖H w_k − λ_k w_k‖.
-    applyBlock(op, partition, b, vectors, scratch, d);
+    applyBlock(sparse, vectors, scratch, d);
     const residuals = new Float64Array(d);
     let rf2 = 0;
     for (let k = 0; k < d; k++) {
@@ -145,6 +150,11 @@ export async function decomposeBlocks(
     blocks.push({ states, values, vectors, realVectors, residuals, residualNorm, orthogonality: delta, real: rep.real, gram });
   }
   return {
-    partition, blocks, backwardError, orthogonality, maxResidual, normBound: a, largestBlock: largest, realBlocks,
+    partition, blocks, backwardError, orthogonality, maxResidual, largestBlock: largest, realBlocks,
   };
+}
+
+/** The zero d×d block (a Hamiltonian without entries in it, e.g. H = 0 on a sector). */
+function emptyBlock(d: number) {
+  return { size: d, colStart: new Int32Array(d + 1), row: new Int32Array(0), re: new Float64Array(0), im: new Float64Array(0), real: true };
 }

@@ -6,8 +6,8 @@ export type { SpectralEngineOptions } from './spectral-engine.js';
 export {
   planSpectral, estimateCost, MAX_SPECTRAL_SITES, MEMORY_BUDGET_BYTES, ASSUMED_FLOPS_PER_SECOND, ETA_PER_STATE,
 } from './plan-spectral.js';
-export { spectralSetup } from './spectral-setup.js';
-export type { SpectralSetup } from './spectral-setup.js';
+export { buildSpectralBasis, spectralSetup } from './spectral-setup.js';
+export type { SpectralBasis, SpectralSetup, SumFigures } from './spectral-setup.js';
 export { decomposeBlocks } from './decompose-blocks.js';
 export type { BlockEigen, Decomposition, DecomposeOptions } from './decompose-blocks.js';
 export { thermoFromSpectrum } from './thermo-from-spectrum.js';

@@ -1,25 +1,31 @@
 /**
  * buildQuenchBasis — everything the spectral quench needs per joint symmetry block J, formed
  * once per sweep from the decompositions H0 = ⊕ W·Λ0·Wᴴ (over H0's own blocks, which refine
- * the joint blocks) and H1 = ⊕ V·Λ1·Vᴴ (over the joint blocks):
+ * the joint blocks) and H1 = ⊕ V·Λ1·Vᴴ (over the joint blocks), all in one symmetry-adapted
+ * basis (symmetry/sector-basis.ts):
  *   mixing X = W_Jᴴ·V_J               rows ↔ H0 eigenpairs inside J, columns ↔ H1 eigenpairs
  *   Õ_k = V_Jᴴ·O_k·V_J (packed)        for every measured operator O_k = Σ w·P of the
- *                                       measurement plan (null: zero block)
+ *                                       measurement plan (group-averaged when the basis has
+ *                                       spatial symmetry; null: zero block)
  *   H̃1 = V_Jᴴ·H1·V_J (packed)           ≈ Λ1; its off-diagonal part is the residual, so ⟨H1⟩(t)
  *                                       computed from it shows the real drift of the method
  *   G = V_JᴴV_J (packed)                 the identity's image: Tr ρ(t) = ‖ψ(t)‖² (normDrift)
  * W_J is block-diagonal over H0's blocks b ⊂ J, so X is assembled row-block by row-block:
  * X_b = W_bᴴ·V_J[rows of b, :] (a gather of rows when b ≠ J).
- * Real blocks (real W and V, from real symmetric H0 and H1) keep X real and use real products
- * throughout (transform-operator-real.ts: a quarter of the complex flops).
+ * Real blocks (real W and V, from real symmetric H0 and H1 blocks) keep X real and use real
+ * products throughout (transform-operator-real.ts: a quarter of the complex flops).
+ * Each block carries the multiplicity of its sector (2 when it also stands for its mirror
+ * image, symmetry/group-sectors.ts), by which the quench weights its contributions.
  * Thermal state per β: thermal-overlap(-real).ts; time dependence: phase-rotate.ts.
  *
  * Cost per block of size d: 8·d³ (X) + 4·d³ per operator with a non-zero block + 4·d³ (H̃1)
- * + 8·d²·(G + 1) (H1·V), a quarter of the d³ terms for real blocks; memory 16·d² (X; 8·d² real)
+ * + 8·nnz·d (H1·V), a quarter of the d³ terms for real blocks; memory 16·d² (X; 8·d² real)
  * + 8·d(d+1)/2 per non-zero plane of each packed matrix.
  */
-import type { CompiledOperator } from '../../kernels/index.js';
 import { complexAdjointProduct } from '../../linalg/complex-adjoint-product.js';
+import type { PauliTermMask } from '../../physics/types.js';
+import { blockMatrix, blockSector } from '../../symmetry/index.js';
+import type { SectorBasis } from '../../symmetry/index.js';
 import { applyBlock } from './apply-block.js';
 import type { Decomposition } from './decompose-blocks.js';
 import type { MeasuredOperator } from './measurement-plan.js';
@@ -32,8 +38,10 @@ import { yieldIfDue } from './yield-if-due.js';
 
 /** One joint block of the quench. */
 export interface QuenchBlock {
-  /** Number of basis states d. */
+  /** Number of basis vectors d. */
   readonly size: number;
+  /** Sectors the block stands for (1, or 2 with its mirror image). */
+  readonly multiplicity: number;
   /** H1 eigenvalues of the block (ascending). */
   readonly energies: Float64Array;
   /** X = W_Jᴴ·V_J, column-major complex d×d (complex blocks), or compact real d×d (real blocks). */
@@ -58,8 +66,10 @@ export interface QuenchBasisInput {
   readonly h0Offsets: Int32Array;
   /** H1 over the joint partition, decomposed with keepGram. */
   readonly h1: Decomposition;
-  /** H1 compiled (for H1·V). */
-  readonly h1Operator: CompiledOperator;
+  /** The basis both partitions are over. */
+  readonly basis: SectorBasis;
+  /** H1's terms (for H1·V). */
+  readonly h1Terms: readonly PauliTermMask[];
   /** The operators to measure (measurement-plan.ts). */
   readonly operators: readonly MeasuredOperator[];
   readonly signal?: AbortSignal;
@@ -67,7 +77,7 @@ export interface QuenchBasisInput {
 
 /** Builds the quench blocks (see the file header). Rejects with an AbortError when aborted. */
 export async function buildQuenchBasis(input: QuenchBasisInput): Promise<QuenchBlock[]> {
-  const { h0, h0Offsets, h1, h1Operator, operators, signal } = input;
+  const { h0, h0Offsets, h1, basis, h1Terms, operators, signal } = input;
   const joint = h1.partition;
   const members: number[][] = joint.blocks.map(() => []);
   h0.blocks.forEach((b, k) => members[joint.blockOf[b.states[0]]].push(k));
@@ -115,13 +125,19 @@ export async function buildQuenchBasis(input: QuenchBasisInput): Promise<QuenchB
     const ops: (PackedPlanes | null)[] = [];
     for (const op of operators) {
       await yieldIfDue(signal);
-      const nonzero = real
-        ? transformOperatorReal(op, joint, J, v, partial, packed)
-        : transformOperator(op, joint, J, v, partial, packed);
-      ops.push(nonzero ? splitPacked(d, packed) : null);
+      const block = blockMatrix(basis, joint, J, op.terms, false);
+      if (block === null) {
+        ops.push(null);
+        continue;
+      }
+      if (real) transformOperatorReal(block, v, partial, packed);
+      else transformOperator(block, v, partial, packed);
+      ops.push(splitPacked(d, packed));
     }
     // H̃1 = Vᴴ·(H1·V): H1·V by the sparse block product on the complex vectors.
-    applyBlock(h1Operator, joint, J, hb.vectors, partial, d);
+    const h1Block = blockMatrix(basis, joint, J, h1Terms, true);
+    if (h1Block === null) partial.fill(0, 0, 2 * d * d);
+    else applyBlock(h1Block, hb.vectors, partial, d);
     if (real) {
       for (let k = 0; k < d * d; k++) gathered[k] = partial[2 * k]; // H1 real: imaginary parts are 0
       packed.fill(0, 0, d * (d + 1));
@@ -136,7 +152,8 @@ export async function buildQuenchBasis(input: QuenchBasisInput): Promise<QuenchB
       gramPacked = packed;
     }
     const gram = splitPacked(d, gramPacked);
-    out.push({ size: d, energies: hb.values, mixing, real, rowIndex, operators: ops, h1: h1Planes, gram });
+    const multiplicity = blockSector(basis, joint, J).multiplicity;
+    out.push({ size: d, multiplicity, energies: hb.values, mixing, real, rowIndex, operators: ops, h1: h1Planes, gram });
   }
   return out;
 }

@@ -1,10 +1,11 @@
 /**
  * runSpectralQuench — every grid time of one β from the quench basis (quench-basis.ts) and the
  * thermal overlaps ρ̃_J of that β (thermal-overlap.ts):
- *   f_k(t) = Σ_J R′_J(t)·Õ_{k,J},   n(t) = Σ_J R′_J(t)·G_J,   h(t) = Σ_J R′_J(t)·H̃1_J,
+ *   f_k(t) = Σ_J μ_J·R′_J(t)·Õ_{k,J},   n(t) = Σ_J μ_J·R′_J(t)·G_J,   h(t) = Σ_J μ_J·R′_J(t)·H̃1_J,
  *   ⟨O_k⟩(t) = f_k(t)/n(t)   (the doubled-state ratio Tr(M†OM)/Tr(M†M) of DESIGN.md §2),
  * for the measured operators O_k of the measurement plan (measurement-plan.ts), with R′_J(t)
- * from phase-rotate.ts and packed planes (packed-planes.ts). n(t) = Tr(U ρ U†) with
+ * from phase-rotate.ts and packed planes (packed-planes.ts), μ_J the block's multiplicity (2
+ * when it stands for its mirror-image sector too, symmetry/group-sectors.ts). n(t) = Tr(U ρ U†) with
  * U = V e^{−iΛt} Vᴴ is the squared norm of the doubled state; it is constant exactly when V is
  * exactly unitary, so its drift, and that of ⟨H1⟩ = h/n, measure the decomposition's real
  * defects rather than being assumed 0.
@@ -88,12 +89,12 @@ export async function runSpectralQuench(input: SpectralQuenchInput): Promise<Spe
   const values = new Float64Array(layout.series.length);
   const errors = new Float64Array(layout.series.length);
 
-  const addPlanes = (planes: PackedPlanes, slot: number, count: number, base: number, len: number) => {
+  const addPlanes = (planes: PackedPlanes, slot: number, count: number, base: number, len: number, mult: number) => {
     if (planes.re !== null) {
-      for (let tau = 0; tau < count; tau++) acc[tau * width + slot] += packedDot(rRe, tau * cap, planes.re, base, len);
+      for (let tau = 0; tau < count; tau++) acc[tau * width + slot] += mult * packedDot(rRe, tau * cap, planes.re, base, len);
     }
     if (planes.im !== null) {
-      for (let tau = 0; tau < count; tau++) acc[tau * width + slot] += packedDot(rIm, tau * cap, planes.im, base, len);
+      for (let tau = 0; tau < count; tau++) acc[tau * width + slot] += mult * packedDot(rIm, tau * cap, planes.im, base, len);
     }
   };
 
@@ -123,11 +124,11 @@ export async function runSpectralQuench(input: SpectralQuenchInput): Promise<Spe
         if (withOperators) {
           for (let k = 0; k < nOps; k++) {
             const o = b.operators[k];
-            if (o !== null) addPlanes(o, k, count, base, len);
+            if (o !== null) addPlanes(o, k, count, base, len, b.multiplicity);
           }
         }
-        addPlanes(b.gram, nOps, count, base, len);
-        addPlanes(b.h1, nOps + 1, count, base, len);
+        addPlanes(b.gram, nOps, count, base, len, b.multiplicity);
+        addPlanes(b.h1, nOps + 1, count, base, len, b.multiplicity);
         n0 = n1;
       }
     }

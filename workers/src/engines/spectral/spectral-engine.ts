@@ -3,13 +3,15 @@
  * eigendecompositions of H0 and H1 (name 'spectral'; DESIGN.md §2–3).
  *
  * One branch runs every β (the decompositions are shared):
- *   1. Blocks: H0 over its conserved-magnetisation sectors, H1 over the blocks common to both
- *      (spectral-setup.ts); symmetry 'none' uses the whole 2^N space.
+ *   1. Blocks: a symmetry-adapted basis for the lattice translations and reflection H0 and H1
+ *      share (momentum and parity sectors), split by conserved magnetisation; H0 over its own
+ *      blocks, H1 over the blocks common to both (spectral-setup.ts, workers/src/symmetry);
+ *      symmetry 'none' uses the whole 2^N space.
  *   2. H0 = ⊕ W·Λ0·Wᴴ and H1 = ⊕ V·Λ1·Vᴴ by hermitianEigen per block, with residuals and
  *      orthogonality → backward errors η0, η1 (decompose-blocks.ts). One decomposition when
  *      H1 = H0 term by term.
  *   3. Quench basis: X = WᴴV, Õ = VᴴOV per measured operator (a series' whole linear part, or
- *      one primitive: measurement-plan.ts), VᴴH1V, VᴴV (quench-basis.ts).
+ *      one primitive, group-averaged: measurement-plan.ts), VᴴH1V, VᴴV (quench-basis.ts).
  *   4. Per β: ln Z, E, C, F, S from Λ0 (thermo-from-spectrum.ts); ρ̃ = Xᴴ diag(p) X
  *      (thermal-overlap.ts); then for all t: ⟨P⟩(t) = Σ_mn ρ̃_nm Õ_mn e^{i(E_m−E_n)t}
  *      normalised by the doubled-state norm (run-spectral-quench.ts). M(t) = U M U† with
@@ -20,13 +22,15 @@
  * M = W diag(√p) Wᴴ, from HW = WΛ + R (the exact engine measures ‖Kψ‖/‖ψ‖ on its state; here
  * the representation is stationary by construction up to these residuals);
  * propagatorErrorBound = η1·t_max + 2δ1 (spectral-error.ts).
- * Limits: plan-spectral.ts (≤ 13 sites, memory budget). Translations and reflections are not
- * used; the decomposition itself is not interruptible inside a block (the signal is checked
- * between blocks and at every time point).
+ * A sector kept for its mirror image too (multiplicity 2) counts twice in the spectrum and in
+ * every trace. extra reports the symmetries used and dropped and the block sizes.
+ * Limits: plan-spectral.ts (sites, memory budget). The decomposition itself is not
+ * interruptible inside a block (the signal is checked between blocks and at every time point).
  */
 import type { SeriesInfo, SweepPlan, SweepSpec } from '../../../../shared-types/src/index.js';
 import { buildLattice } from '../../lattice/build-lattice.js';
 import { seriesLabels } from '../../observables/plan-series.js';
+import { blockSector, SYMMETRY_MODES } from '../../symmetry/index.js';
 import type { SymmetryMode } from '../../symmetry/index.js';
 import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
@@ -40,8 +44,9 @@ import type { RhoPlanes } from './run-spectral-quench.js';
 import { packedLength } from './packed-planes.js';
 import { propagatorError } from './spectral-error.js';
 import type { DecompositionFigures } from './spectral-error.js';
-import { spectralSetup } from './spectral-setup.js';
+import { buildSpectralBasis, spectralSetup } from './spectral-setup.js';
 import type { SpectralSetup } from './spectral-setup.js';
+import { blockSizeSummary } from './block-size-summary.js';
 import { thermalOverlap } from './thermal-overlap.js';
 import { thermalOverlapReal } from './thermal-overlap-real.js';
 import { thermoFromSpectrum } from './thermo-from-spectrum.js';
@@ -50,15 +55,18 @@ import { yieldIfDue } from './yield-if-due.js';
 /** Options of the spectral engine. */
 export interface SpectralEngineOptions {
   /**
-   * Symmetry that splits the basis into blocks: 'magnetisation' (popcount sectors when
-   * Σ_i Z_i is conserved, else the whole space) or 'none' (always the whole space; for checks).
-   * @defaultValue 'magnetisation'
+   * Symmetries that may split the basis into blocks (each used only where H0 and H1 have it,
+   * decided from their terms): 'all' (magnetisation, translations, one reflection),
+   * 'translations' (no reflection), 'magnetisation' (conserved Σ_i Z_i only) or 'none' (the
+   * whole space; for checks).
+   * @defaultValue 'all'
    */
   symmetry?: SymmetryMode;
 }
 
 /** What a branch keeps after the decompositions (their eigenvectors are released). */
 interface Prepared {
+  /** H0's eigenvalues, blocks of multiplicity 2 repeated at the end. */
   readonly energies0: Float64Array;
   readonly residuals0: Float64Array;
   readonly fig0: DecompositionFigures;
@@ -72,13 +80,13 @@ interface Prepared {
 /** The spectral engine (name 'spectral'). */
 export class SpectralEngine implements Engine {
   readonly name = 'spectral';
-  readonly version = '0.1.0';
+  readonly version = '0.2.0';
   readonly #symmetry: SymmetryMode;
 
   constructor(options: SpectralEngineOptions = {}) {
-    const { symmetry = 'magnetisation' } = options;
-    if (symmetry !== 'magnetisation' && symmetry !== 'none') {
-      throw new RangeError(`options.symmetry must be 'magnetisation' or 'none'; got ${String(symmetry)}`);
+    const { symmetry = 'all' } = options;
+    if (!SYMMETRY_MODES.includes(symmetry)) {
+      throw new RangeError(`options.symmetry must be one of ${SYMMETRY_MODES.join(', ')}; got ${String(symmetry)}`);
     }
     this.#symmetry = symmetry;
   }
@@ -163,26 +171,35 @@ export class SpectralEngine implements Engine {
 /** Decomposes H0 and H1 and builds the quench basis; the eigenvectors are dropped on return. */
 async function prepare(setup: SpectralSetup, signal: AbortSignal | undefined): Promise<Prepared> {
   const t0 = performance.now();
-  const dec0 = await decomposeBlocks(setup.op0, setup.partition0, { signal, keepGram: setup.same });
-  const dec1 = setup.same ? dec0 : await decomposeBlocks(setup.op1, setup.joint, { signal, keepGram: true });
+  const { basis, partition0, joint } = buildSpectralBasis(setup);
+  const tBasis = performance.now();
+  const dec0 = await decomposeBlocks(setup.h0.terms, basis, partition0, { signal, keepGram: setup.same });
+  const dec1 = setup.same ? dec0 : await decomposeBlocks(setup.h1.terms, basis, joint, { signal, keepGram: true });
   const t1 = performance.now();
-  const dim = setup.partition0.dim;
-  const energies0 = new Float64Array(dim);
-  const residuals0 = new Float64Array(dim);
+  // Every block once, then the blocks of multiplicity 2 again (their mirror-image sectors).
+  const mult = dec0.blocks.map((_, b) => blockSector(basis, partition0, b).multiplicity);
+  let total = 0;
+  dec0.blocks.forEach((b, k) => { total += mult[k] * b.values.length; });
+  const energies0 = new Float64Array(total);
+  const residuals0 = new Float64Array(total);
   const offsets = new Int32Array(dec0.blocks.length);
   let at = 0;
-  dec0.blocks.forEach((b, k) => {
-    offsets[k] = at;
-    energies0.set(b.values, at);
-    residuals0.set(b.residuals, at);
-    at += b.values.length;
-  });
+  for (let copy = 1; copy <= 2; copy++) {
+    dec0.blocks.forEach((b, k) => {
+      if (mult[k] < copy) return;
+      if (copy === 1) offsets[k] = at;
+      energies0.set(b.values, at);
+      residuals0.set(b.residuals, at);
+      at += b.values.length;
+    });
+  }
   let maxAbsEnergy1 = 0;
   for (const b of dec1.blocks) for (const e of b.values) maxAbsEnergy1 = Math.max(maxAbsEnergy1, Math.abs(e));
   const blocks = await buildQuenchBasis({
-    h0: dec0, h0Offsets: offsets, h1: dec1, h1Operator: setup.op1, operators: setup.measure.operators, signal,
+    h0: dec0, h0Offsets: offsets, h1: dec1, basis, h1Terms: setup.h1.terms, operators: setup.measure.operators, signal,
   });
   const t2 = performance.now();
+  const sym = setup.symmetry;
   return {
     energies0,
     residuals0,
@@ -192,10 +209,16 @@ async function prepare(setup: SpectralSetup, signal: AbortSignal | undefined): P
     largestBlock: Math.max(dec0.largestBlock, dec1.largestBlock),
     maxAbsEnergy1,
     extra: {
-      symmetry: setup.joint.symmetry,
+      symmetry: sym.label,
+      symmetryDropped: sym.rejected.join('; '),
+      sectors: sym.sectors.length,
+      groupOrder: sym.group.elements.length,
+      basisVectors: basis.count,
       h0Blocks: dec0.blocks.length,
       jointBlocks: blocks.length,
+      mirroredBlocks: blocks.filter((b) => b.multiplicity > 1).length,
       largestBlock: Math.max(dec0.largestBlock, dec1.largestBlock),
+      jointBlockSizes: blockSizeSummary(blocks.map((b) => b.size)),
       realBlocks: dec0.realBlocks + (setup.same ? 0 : dec1.realBlocks),
       realQuenchBlocks: blocks.filter((b) => b.real).length,
       h0BackwardError: dec0.backwardError,
@@ -207,7 +230,8 @@ async function prepare(setup: SpectralSetup, signal: AbortSignal | undefined): P
       sharedDecomposition: setup.same,
       measuredOperators: setup.measure.operators.length,
       measurementMode: setup.measure.mode,
-      decomposeSeconds: (t1 - t0) / 1000,
+      basisSeconds: (tBasis - t0) / 1000,
+      decomposeSeconds: (t1 - tBasis) / 1000,
       quenchBasisSeconds: (t2 - t1) / 1000,
     },
   };
