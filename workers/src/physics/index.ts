@@ -9,3 +9,4 @@ export {
 } from './pauli-algebra.js';
 export type { PauliProduct, ComplexPauliTerm, ComplexPauliSum } from './pauli-algebra.js';
 export { buildHamiltonian, MAX_MASK_SITES, CANCEL_RTOL } from './build-hamiltonian.js';
+export { sameTerms } from './same-terms.js';

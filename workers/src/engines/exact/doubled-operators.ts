@@ -11,6 +11,7 @@
 import { compileOperator, scaleSum, transposeSum } from '../../kernels/index.js';
 import type { CompiledOperator } from '../../kernels/index.js';
 import type { SpectralInterval } from '../../propagators/index.js';
+import { sameTerms } from '../../physics/same-terms.js';
 import type { PauliSum } from '../../physics/types.js';
 
 /**
@@ -50,22 +51,4 @@ export function doubledOperators(h0: PauliSum, h1: PauliSum, auxiliary: Auxiliar
     quenchInterval: { lo: -2 * c1.normBound, hi: 2 * c1.normBound },
     h1EqualsH0: sameTerms(h0, h1),
   };
-}
-
-/** Same Pauli strings with the same (merged) weights, order ignored. */
-function sameTerms(a: PauliSum, b: PauliSum): boolean {
-  const merge = (s: PauliSum) => {
-    const m = new Map<string, number>();
-    for (const t of s.terms) {
-      const key = `${t.x},${t.z}`;
-      m.set(key, (m.get(key) ?? 0) + t.weight);
-    }
-    for (const [k, w] of m) if (w === 0) m.delete(k);
-    return m;
-  };
-  const ma = merge(a);
-  const mb = merge(b);
-  if (ma.size !== mb.size) return false;
-  for (const [k, w] of ma) if (mb.get(k) !== w) return false;
-  return true;
 }

@@ -19,14 +19,16 @@ import { seriesLabels } from '../../observables/plan-series.js';
 import { buildHamiltonian } from '../../physics/build-hamiltonian.js';
 import { propagateImaginaryTime } from '../../propagators/index.js';
 import type { AffineApply } from '../../propagators/index.js';
-import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
+import { abortError } from '../abort-error.js';
+import { branchOrder } from '../branch-order.js';
 import type { BranchOptions, BranchSink, Engine } from '../engine.js';
+import { pointEmitter } from '../point-emitter.js';
 import { doubledOperators } from './doubled-operators.js';
 import type { AuxiliaryMode } from './doubled-operators.js';
 import { errorBudget, imaginaryTarget, quenchCalls, ROUNDING_PER_MATVEC } from './error-budget.js';
 import { MAX_EXACT_SITES, planExact } from './plan-exact.js';
-import { abortError, runQuench } from './run-quench.js';
+import { runQuench } from './run-quench.js';
 import { thermoAtBeta } from './thermo-at-beta.js';
 
 /** Options of the exact engine. */
@@ -62,14 +64,8 @@ export class ExactEngine implements Engine {
 
   /** Runs the branch's β indices in ascending β (see file header). */
   async runBranch(spec: SweepSpec, betaIndices: number[], sink: BranchSink, options: BranchOptions = {}): Promise<void> {
-    const { signal, resumeFrom = {} } = options;
-    const betas = betaGrid(spec);
-    for (const b of betaIndices) {
-      if (!Number.isInteger(b) || b < 0 || b >= betas.length) {
-        throw new RangeError(`betaIndices: ${b} is not an index of the β grid (0..${betas.length - 1})`);
-      }
-    }
-    const order = [...new Set(betaIndices)].sort((p, q) => betas[p] - betas[q]);
+    const { signal, resumeFrom } = options;
+    const { betas, order } = branchOrder(spec, betaIndices);
     if (order.length === 0) return;
     const graph = buildLattice(spec.lattice);
     if (graph.sites > MAX_EXACT_SITES) {
@@ -126,14 +122,10 @@ export class ExactEngine implements Engine {
       }
       const last = k === order.length - 1;
       if (thermal !== null && !last) thermal.set(state);
-      const skipBelow = resumeFrom[betaIndex] ?? 0;
       const quench = await runQuench({
         ops, layout, times, state, work, stepTolerance, initialError: thermalError, signal,
         stationary: beta === 0 && this.#auxiliary === 'transpose',
-        onPoint(timeIndex, values, errors) {
-          if (timeIndex < skipBelow) return;
-          sink.point({ betaIndex, timeIndex, values: Array.from(values), errors: Array.from(errors) });
-        },
+        onPoint: pointEmitter(sink, betaIndex, resumeFrom),
       });
       sink.diagnostics({
         betaIndex,

@@ -24,6 +24,8 @@ import {
 } from '../../propagators/index.js';
 import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
+import { refusePlan } from '../plan-refusal.js';
+import { planSites } from '../plan-sites.js';
 import { doubledOperators } from './doubled-operators.js';
 import type { DoubledOperators } from './doubled-operators.js';
 import { errorBudget, imaginaryTarget, quenchCalls, ROUNDING_PER_MATVEC } from './error-budget.js';
@@ -49,16 +51,9 @@ export function planExact(spec: SweepSpec, name = 'exact'): SweepPlan {
     engine: name, reason: REASON, memoryBytes: 0, flops: 0, seconds: 0,
     accuracy: spec.tolerance, branches: betas.map((_, b) => [b]),
   };
-  let sites: number;
-  try {
-    sites = buildLattice(spec.lattice).sites;
-  } catch (e) {
-    return refuse(base, 0, 'lattice', 0, 0, `the lattice cannot be built: ${(e as Error).message}`);
-  }
-  if (sites > MAX_EXACT_SITES) {
-    return refuse(base, sites, 'lattice', MAX_EXACT_SITES, sites,
-      `the exact engine holds 4^N amplitudes and is limited to ${MAX_EXACT_SITES} sites; this lattice has ${sites}`);
-  }
+  const checked = planSites(spec, base, MAX_EXACT_SITES, 'the exact engine holds 4^N amplitudes');
+  if (!checked.ok) return checked.plan;
+  const { sites } = checked;
   const vectorBytes = 16 * 4 ** sites;
   let ops: DoubledOperators;
   let budget: ErrorBudget;
@@ -72,12 +67,12 @@ export function planExact(spec: SweepSpec, name = 'exact'): SweepPlan {
     budget = errorBudget(layout, spec.tolerance, sites);
     primitives = layout.primitives.length;
   } catch (e) {
-    return refuse(base, sites, 'spec', 0, 0, `the spec cannot be set up: ${(e as Error).message}`);
+    return refusePlan(base, sites, 'spec', 0, 0, `the spec cannot be set up: ${(e as Error).message}`);
   }
   const tables = [ops.h0, ops.h1, ops.aux].reduce((s, op) => s + tableBytes(op), 0);
   const memoryBytes = VECTORS_PER_BRANCH * vectorBytes + tables;
   if (memoryBytes > MEMORY_BUDGET_BYTES) {
-    return refuse({ ...base, memoryBytes }, sites, 'memory', MEMORY_BUDGET_BYTES, memoryBytes,
+    return refusePlan({ ...base, memoryBytes }, sites, 'memory', MEMORY_BUDGET_BYTES, memoryBytes,
       `one branch needs ${memoryBytes} bytes, above the budget of ${MEMORY_BUDGET_BYTES} bytes`);
   }
 
@@ -98,7 +93,7 @@ export function planExact(spec: SweepSpec, name = 'exact'): SweepPlan {
   }
   const floor = 4 * budget.weight * worstRounding;
   if (floor > spec.tolerance / 2) {
-    return refuse({ ...base, memoryBytes, flops, seconds: flops / ASSUMED_FLOPS_PER_SECOND }, sites, 'tolerance',
+    return refusePlan({ ...base, memoryBytes, flops, seconds: flops / ASSUMED_FLOPS_PER_SECOND }, sites, 'tolerance',
       spec.tolerance, floor,
       `the rounding allowance of ~${floor.toExponential(2)} (${Math.round(worstRounding / ROUNDING_PER_MATVEC)} operator applications) exceeds half the tolerance ${spec.tolerance}`);
   }
@@ -145,11 +140,4 @@ function groupCount(op: CompiledOperator): number {
 
 function tableBytes(op: CompiledOperator): number {
   return (op.diagonal === null ? 0 : 8 * op.dim) + 16 * op.dim * op.groups.length;
-}
-
-function refuse(
-  base: Omit<SweepPlan, 'feasible' | 'refusal' | 'sites'>,
-  sites: number, field: string, limit: number, estimate: number, message: string,
-): SweepPlan {
-  return { ...base, feasible: false, refusal: { field, limit, estimate, message }, sites };
 }

@@ -18,6 +18,7 @@ import { evaluateSeries } from '../../observables/expand-observables.js';
 import type { ObservableLayout } from '../../observables/expand-observables.js';
 import { propagateRealTime } from '../../propagators/index.js';
 import type { AffineApply } from '../../propagators/index.js';
+import { abortError } from '../abort-error.js';
 import type { DoubledOperators } from './doubled-operators.js';
 import { ROUNDING_PER_MATVEC } from './error-budget.js';
 
@@ -57,13 +58,6 @@ export interface QuenchReport {
   h1Drift: number;
   /** Largest |Im⟨P⟩| seen (should be rounding). */
   maxImag: number;
-}
-
-/** Error thrown when the abort signal fires (name 'AbortError'). */
-export function abortError(signal: AbortSignal): Error {
-  const e = new Error('the branch was aborted', { cause: signal.reason });
-  e.name = 'AbortError';
-  return e;
 }
 
 /** Runs the quench (see file header). Rejects with an AbortError when the signal fires. */

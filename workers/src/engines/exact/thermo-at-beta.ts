@@ -6,11 +6,12 @@
  *   F = −ln Z/β (null at β = 0),  S = ln Z + βE
  * Error bounds from the state's relative error δ (see error-budget.ts), with a = ‖H0 − shift‖ ≤ Σ|w|:
  *   |ΔE| ≤ 2aδ;  |ΔVar| ≤ δa² (⟨H'²⟩, H'² ∈ [0, a²]) + 4a²δ (E'²) = 5a²δ;  |Δ ln Z| ≤ −2 ln(1 − δ);
- *   |ΔF| = |Δ ln Z|/β;  |ΔS| ≤ |Δ ln Z| + β|ΔE|.
+ *   |ΔF| = |Δ ln Z|/β;  |ΔS| ≤ |Δ ln Z| + β|ΔE|  (F, S and their errors assembled by thermo-record.ts).
  * Cost: 2 applications of H0 ⊗ 1; uses one work vector.
  */
 import type { ThermoRecord } from '../../../../shared-types/src/index.js';
 import { applyDoubledAffine, dotc, norm2sq } from '../../kernels/index.js';
+import { thermoRecord } from '../thermo-record.js';
 import type { DoubledOperators } from './doubled-operators.js';
 
 /** Inputs of {@link thermoAtBeta}. */
@@ -44,21 +45,8 @@ export function thermoAtBeta(input: ThermoInput): ThermoRecord {
   const a = ops.h0.normBound;
   const eLnZ = d < 1 ? -2 * Math.log1p(-d) : Infinity;
   const eE = 2 * a * d;
-  return {
-    betaIndex,
-    beta,
-    lnZ,
-    energy,
-    heatCapacity: beta * beta * variance,
-    freeEnergy: beta === 0 ? null : -lnZ / beta,
-    entropy: lnZ + beta * energy,
-    errors: {
-      lnZ: eLnZ,
-      energy: eE,
-      heatCapacity: beta * beta * 5 * a * a * d,
-      freeEnergy: beta === 0 ? null : eLnZ / beta,
-      entropy: eLnZ + beta * eE,
-    },
-    sites: ops.sites,
-  };
+  return thermoRecord({
+    betaIndex, beta, sites: ops.sites, lnZ, energy, heatCapacity: beta * beta * variance,
+    errors: { lnZ: eLnZ, energy: eE, heatCapacity: beta * beta * 5 * a * a * d },
+  });
 }

@@ -25,9 +25,11 @@
 import type { SeriesInfo, SweepPlan, SweepSpec } from '../../../../shared-types/src/index.js';
 import { buildLattice } from '../../lattice/build-lattice.js';
 import { seriesLabels } from '../../observables/plan-series.js';
-import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
+import { branchOrder } from '../branch-order.js';
 import type { BranchOptions, BranchSink, Engine } from '../engine.js';
+import { pointEmitter } from '../point-emitter.js';
+import { thermoRecord } from '../thermo-record.js';
 import { entryError, thermoErrors } from './error-model.js';
 import { evaluateLayout, freeFermionLayout } from './free-fermion-layout.js';
 import { freeFermionModel, isModelRefusal } from './free-fermion-model.js';
@@ -68,14 +70,8 @@ export class FreeFermionEngine implements Engine {
 
   /** Runs the branch's β indices in ascending β (see the file header). */
   async runBranch(spec: SweepSpec, betaIndices: number[], sink: BranchSink, options: BranchOptions = {}): Promise<void> {
-    const { signal, resumeFrom = {} } = options;
-    const betas = betaGrid(spec);
-    for (const b of betaIndices) {
-      if (!Number.isInteger(b) || b < 0 || b >= betas.length) {
-        throw new RangeError(`betaIndices: ${b} is not an index of the β grid (0..${betas.length - 1})`);
-      }
-    }
-    const order = [...new Set(betaIndices)].sort((p, q) => betas[p] - betas[q]);
+    const { signal, resumeFrom } = options;
+    const { betas, order } = branchOrder(spec, betaIndices);
     if (order.length === 0) return;
     if (signal?.aborted) throw abortError(signal);
     const model = freeFermionModel(spec);
@@ -114,18 +110,12 @@ export class FreeFermionEngine implements Engine {
       const beta = betas[betaIndex];
       const thermo = sectorThermo(sectors.map((s) => ({ eps: s.h0.schur.eps, det: s.h0.schur.det, constant: s.constant0 })), beta, sites);
       const te = thermoErrors(sites, health.residual0, health.norm0, beta);
-      const freeEnergy = beta > 0 ? -thermo.lnZ / beta : null;
-      sink.thermo({
-        betaIndex, beta, lnZ: thermo.lnZ, energy: thermo.energy, heatCapacity: thermo.heatCapacity,
-        freeEnergy, entropy: thermo.lnZ + beta * thermo.energy,
-        errors: {
-          lnZ: te.lnZ, energy: te.energy, heatCapacity: te.heatCapacity,
-          freeEnergy: beta > 0 ? te.lnZ / beta : null, entropy: te.lnZ + beta * te.energy,
-        },
-        sites,
-      });
+      sink.thermo(thermoRecord({
+        betaIndex, beta, sites, lnZ: thermo.lnZ, energy: thermo.energy, heatCapacity: thermo.heatCapacity,
+        errors: { lnZ: te.lnZ, energy: te.energy, heatCapacity: te.heatCapacity },
+      }));
       const set = gaussianComponents(sectors, thermo, beta, rMax);
-      const skipBelow = resumeFrom[betaIndex] ?? 0;
+      const emit = pointEmitter(sink, betaIndex, resumeFrom);
       let h1Start = 0;
       let h1Drift = 0;
       let stationarity = 0;
@@ -148,9 +138,7 @@ export class FreeFermionEngine implements Engine {
           if (h1EqualsH0) for (let p = 0; p < np; p++) stationarity = Math.max(stationarity, Math.abs(values[p] - first[p]));
         }
         evaluateLayout(layout.series, values, sysErrors, rndErrors, outValues, outErrors);
-        if (k >= skipBelow) {
-          sink.point({ betaIndex, timeIndex: k, values: Array.from(outValues), errors: Array.from(outErrors) });
-        }
+        emit(k, outValues, outErrors);
       }
       sink.diagnostics({
         betaIndex,

@@ -27,6 +27,7 @@ import type { SweepPlan, SweepSpec } from '../../../../shared-types/src/index.js
 import type { PauliFactor } from '../../physics/pauli-word.js';
 import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
+import { refusePlan } from '../plan-refusal.js';
 import { priorEntryError } from './error-model.js';
 import { freeFermionModel, isModelRefusal, type FreeFermionModel } from './free-fermion-model.js';
 import { pauliToMajorana, timesParity, type MajoranaMonomial } from './jordan-wigner.js';
@@ -184,7 +185,7 @@ export function planFreeFermion(spec: SweepSpec, name = 'free-fermion'): SweepPl
   try {
     ({ cost, weight } = stringCost(spec, model));
   } catch (e) {
-    return refuse(base, sites, 'observables', 0, 0, `the observables cannot be set up: ${(e as Error).message}`);
+    return refusePlan(base, sites, 'observables', 0, 0, `the observables cannot be set up: ${(e as Error).message}`);
   }
   const parities: Array<1 | -1> = sectors === 2 ? [1, -1] : [1];
   const ns = cost.allRows ? n : cost.rows.reduce((s, v) => s + v, 0);
@@ -233,11 +234,11 @@ export function planFreeFermion(spec: SweepSpec, name = 'free-fermion'): SweepPl
   const memoryBytes = 8 * doubles;
   const planned = { ...base, memoryBytes, flops, seconds };
   if (memoryBytes > MEMORY_BUDGET_BYTES) {
-    return refuse(planned, sites, 'memory', MEMORY_BUDGET_BYTES, memoryBytes,
+    return refusePlan(planned, sites, 'memory', MEMORY_BUDGET_BYTES, memoryBytes,
       `one branch needs ${memoryBytes} bytes (n = ${n} Majoranas: n² doubles per matrix), above the budget of ${MEMORY_BUDGET_BYTES} bytes`);
   }
   if (flops > WORK_BUDGET_FLOPS) {
-    return refuse(planned, sites, 'work', WORK_BUDGET_FLOPS, flops,
+    return refusePlan(planned, sites, 'work', WORK_BUDGET_FLOPS, flops,
       `the sweep needs ~${flops.toExponential(2)} flops (~${Math.round(seconds / 3600)} h on one core), above the budget of ${WORK_BUDGET_FLOPS.toExponential(0)}; long string correlators (by-distance, structure factors of ZZ/YY) cost O(L⁵) per time`);
   }
   let norm0 = 0;
@@ -249,15 +250,8 @@ export function planFreeFermion(spec: SweepSpec, name = 'free-fermion'): SweepPl
   const entry = priorEntryError(n, norm0, norm1, betas[betas.length - 1], times[times.length - 1]);
   const accuracy = Math.max(2, cost.maxOrder) * (entry.systematic * weight.linear + entry.random * weight.quadrature);
   if (accuracy > spec.tolerance) {
-    return refuse({ ...planned, accuracy }, sites, 'tolerance', spec.tolerance, accuracy,
+    return refusePlan({ ...planned, accuracy }, sites, 'tolerance', spec.tolerance, accuracy,
       `the rounding estimate ~${accuracy.toExponential(2)} (n = ${n} Majoranas, Pfaffians up to order ${cost.maxOrder}) exceeds the tolerance ${spec.tolerance}`);
   }
   return { ...planned, accuracy, feasible: true, refusal: null, sites };
-}
-
-function refuse(
-  base: Omit<SweepPlan, 'feasible' | 'refusal' | 'sites'>,
-  sites: number, field: string, limit: number, estimate: number, message: string,
-): SweepPlan {
-  return { ...base, feasible: false, refusal: { field, limit, estimate, message }, sites };
 }

@@ -16,8 +16,8 @@ import { computeSweepSeries, type SweepSeries } from '../../series/compute-sweep
 import { localEnergyScale, seriesAt, thermoAt } from '../../series/evaluate-sweep-series.js';
 import { buildLocalModel } from '../../series/local-terms.js';
 import { expandSeriesObservables } from '../../series/series-observables.js';
-import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
+import { branchOrder } from '../branch-order.js';
 import type { BranchOptions, BranchSink, Engine } from '../engine.js';
 import { planSeriesEngine, type SeriesPlanOptions } from './plan-series-engine.js';
 
@@ -60,13 +60,7 @@ export class SeriesEngine implements Engine {
   /** Computes the series once, then emits every β of the branch (see file header). */
   async runBranch(spec: SweepSpec, betaIndices: number[], sink: BranchSink, options: BranchOptions = {}): Promise<void> {
     const { signal, resumeFrom = {} } = options;
-    const betas = betaGrid(spec);
-    for (const b of betaIndices) {
-      if (!Number.isInteger(b) || b < 0 || b >= betas.length) {
-        throw new RangeError(`betaIndices: ${b} is not an index of the β grid (0..${betas.length - 1})`);
-      }
-    }
-    const order = [...new Set(betaIndices)].sort((p, q) => betas[p] - betas[q]);
+    const { betas, order } = branchOrder(spec, betaIndices);
     if (order.length === 0) return;
     if (signal?.aborted) throw abortError(signal);
     let thermoOrder = this.#options.thermoOrder;

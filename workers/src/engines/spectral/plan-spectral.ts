@@ -28,12 +28,13 @@
  * up ('spec'). Branches: one branch with every β (the decompositions are shared).
  */
 import type { SweepPlan, SweepSpec } from '../../../../shared-types/src/index.js';
-import { buildLattice } from '../../lattice/build-lattice.js';
 import type { PauliTermMask } from '../../physics/types.js';
 import { popcount } from '../../physics/pauli-algebra.js';
 import type { BlockShape, SymmetryMode } from '../../symmetry/index.js';
 import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
+import { refusePlan } from '../plan-refusal.js';
+import { planSites } from '../plan-sites.js';
 import { pauliError } from './spectral-error.js';
 import { spectralSetup } from './spectral-setup.js';
 import type { SpectralSetup } from './spectral-setup.js';
@@ -75,34 +76,27 @@ export function planSpectral(spec: SweepSpec, mode: SymmetryMode, name = 'spectr
     engine: name, reason: reasonOf(null), memoryBytes: 0, flops: 0, seconds: 0,
     accuracy: spec.tolerance, branches: [betas.map((_, b) => b)],
   };
-  let sites: number;
-  try {
-    sites = buildLattice(spec.lattice).sites;
-  } catch (e) {
-    return refuse(base, 0, 'lattice', 0, 0, `the lattice cannot be built: ${(e as Error).message}`);
-  }
-  if (sites > MAX_SPECTRAL_SITES) {
-    return refuse(base, sites, 'lattice', MAX_SPECTRAL_SITES, sites,
-      `the spectral engine diagonalises 2^N × 2^N blocks and is limited to ${MAX_SPECTRAL_SITES} sites; this lattice has ${sites}`);
-  }
+  const checked = planSites(spec, base, MAX_SPECTRAL_SITES, 'the spectral engine diagonalises 2^N × 2^N blocks');
+  if (!checked.ok) return checked.plan;
+  const { sites } = checked;
   let setup: SpectralSetup;
   try {
     setup = spectralSetup(spec, mode);
   } catch (e) {
-    return refuse(base, sites, 'spec', 0, 0, `the spec cannot be set up: ${(e as Error).message}`);
+    return refusePlan(base, sites, 'spec', 0, 0, `the spec cannot be set up: ${(e as Error).message}`);
   }
   const times = timeGrid(spec);
   const cost = estimateCost(setup, betas.length, times.length);
   base.reason = reasonOf(setup);
   if (cost.memoryBytes > MEMORY_BUDGET_BYTES) {
-    return refuse({ ...base, memoryBytes: cost.memoryBytes, flops: cost.flops, seconds: cost.flops / ASSUMED_FLOPS_PER_SECOND },
+    return refusePlan({ ...base, memoryBytes: cost.memoryBytes, flops: cost.flops, seconds: cost.flops / ASSUMED_FLOPS_PER_SECOND },
       sites, 'memory', MEMORY_BUDGET_BYTES, cost.memoryBytes,
       `one branch needs about ${cost.memoryBytes} bytes (largest block ${cost.largestBlock} states), above the budget of ${MEMORY_BUDGET_BYTES} bytes`);
   }
   const accuracy = aPrioriAccuracy(setup, betas[betas.length - 1], times[times.length - 1], cost.largestBlock);
   const planned = { ...base, memoryBytes: cost.memoryBytes, flops: cost.flops, seconds: cost.flops / ASSUMED_FLOPS_PER_SECOND, accuracy };
   if (accuracy > spec.tolerance) {
-    return refuse(planned, sites, 'tolerance', spec.tolerance, accuracy,
+    return refusePlan(planned, sites, 'tolerance', spec.tolerance, accuracy,
       `the a-priori error estimate ${accuracy.toExponential(2)} (rounding through β_max and t_max) exceeds the tolerance ${spec.tolerance}`);
   }
   return { ...planned, feasible: true, refusal: null, sites };
@@ -170,11 +164,4 @@ function aPrioriAccuracy(setup: SpectralSetup, betaMax: number, tMax: number, la
     weight = Math.max(weight, w);
   }
   return weight * pauliError(betaMax, tMax, f0, f1, largest, e1);
-}
-
-function refuse(
-  base: Omit<SweepPlan, 'feasible' | 'refusal' | 'sites'>,
-  sites: number, field: string, limit: number, estimate: number, message: string,
-): SweepPlan {
-  return { ...base, feasible: false, refusal: { field, limit, estimate, message }, sites };
 }

@@ -32,9 +32,10 @@ import { buildLattice } from '../../lattice/build-lattice.js';
 import { seriesLabels } from '../../observables/plan-series.js';
 import { blockSector, SYMMETRY_MODES } from '../../symmetry/index.js';
 import type { SymmetryMode } from '../../symmetry/index.js';
-import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
+import { branchOrder } from '../branch-order.js';
 import type { BranchOptions, BranchSink, Engine } from '../engine.js';
+import { pointEmitter } from '../point-emitter.js';
 import { decomposeBlocks } from './decompose-blocks.js';
 import { MAX_SPECTRAL_SITES, planSpectral } from './plan-spectral.js';
 import { buildQuenchBasis } from './quench-basis.js';
@@ -103,14 +104,8 @@ export class SpectralEngine implements Engine {
 
   /** Runs the branch's β indices in ascending β (see the file header). */
   async runBranch(spec: SweepSpec, betaIndices: number[], sink: BranchSink, options: BranchOptions = {}): Promise<void> {
-    const { signal, resumeFrom = {} } = options;
-    const betas = betaGrid(spec);
-    for (const b of betaIndices) {
-      if (!Number.isInteger(b) || b < 0 || b >= betas.length) {
-        throw new RangeError(`betaIndices: ${b} is not an index of the β grid (0..${betas.length - 1})`);
-      }
-    }
-    const order = [...new Set(betaIndices)].sort((p, q) => betas[p] - betas[q]);
+    const { signal, resumeFrom } = options;
+    const { betas, order } = branchOrder(spec, betaIndices);
     if (order.length === 0) return;
     const graph = buildLattice(spec.lattice);
     if (graph.sites > MAX_SPECTRAL_SITES) {
@@ -147,14 +142,10 @@ export class SpectralEngine implements Engine {
         for (let k = 0; k < weights.length; k++) s += weights[k] * residuals0[k] ** 2;
         stationarityResidual = 2 * Math.sqrt(s);
       }
-      const skipBelow = resumeFrom[betaIndex] ?? 0;
       const report = await runSpectralQuench({
         blocks, rho, plan: setup.measure, times, beta, h0: fig0, h1: fig1,
         largestBlock: prep.largestBlock, maxAbsEnergy1: prep.maxAbsEnergy1, signal,
-        onPoint(timeIndex, values, errors) {
-          if (timeIndex < skipBelow) return;
-          sink.point({ betaIndex, timeIndex, values: Array.from(values), errors: Array.from(errors) });
-        },
+        onPoint: pointEmitter(sink, betaIndex, resumeFrom),
       });
       sink.diagnostics({
         betaIndex,

@@ -21,6 +21,7 @@ import { expandObservables } from '../../observables/expand-observables.js';
 import type { ObservableLayout } from '../../observables/expand-observables.js';
 import { buildHamiltonian } from '../../physics/build-hamiltonian.js';
 import { popcount } from '../../physics/pauli-algebra.js';
+import { sameTerms } from '../../physics/same-terms.js';
 import type { LatticeGraph, PauliSum } from '../../physics/types.js';
 import {
   analyseSymmetry, blockShapes, sectorBasis, sectorPartition, symmetriseTerms,
@@ -30,7 +31,6 @@ import type {
 } from '../../symmetry/index.js';
 import { measurementPlan } from './measurement-plan.js';
 import type { MeasurementPlan } from './measurement-plan.js';
-import { sameTerms } from './same-terms.js';
 
 /** Spectral bounds of a Pauli sum: shift (identity weight) and a = Σ|w| over the other terms. */
 export interface SumFigures {

@@ -12,10 +12,11 @@
  * (from ∂E/∂E_k = p_k(1 − β(E_k − E)) and ∂Var/∂E_k = p_k(2(E_k − E) − β((E_k − E)² − Var))),
  * plus the summation rounding n·ε·Σ|terms| of n-term sums (Higham, Accuracy and Stability of
  * Numerical Algorithms, 2nd ed., §4.2). F and S inherit: |ΔF| = |Δ ln Z|/β,
- * |ΔS| ≤ |Δ ln Z| + β|ΔE|.
+ * |ΔS| ≤ |Δ ln Z| + β|ΔE| (thermo-record.ts).
  * Cost: O(n) with n = 2^N eigenvalues; writes the normalised weights into `weights`.
  */
 import type { ThermoRecord } from '../../../../shared-types/src/index.js';
+import { thermoRecord } from '../thermo-record.js';
 
 /** Inputs of {@link thermoFromSpectrum}. */
 export interface SpectrumThermoInput {
@@ -67,21 +68,8 @@ export function thermoFromSpectrum(input: SpectrumThermoInput): ThermoRecord {
   const eLnZ = beta * eta + eps * (n + Math.abs(beta * emin) + Math.abs(lnZ));
   const eE = eta * (1 + beta * m1) + n * eps * emaxAbs;
   const eVar = eta * (2 * sigma + 2 * beta * variance) + n * eps * spread * spread;
-  return {
-    betaIndex,
-    beta,
-    lnZ,
-    energy,
-    heatCapacity: beta * beta * variance,
-    freeEnergy: beta === 0 ? null : -lnZ / beta,
-    entropy: lnZ + beta * energy,
-    errors: {
-      lnZ: eLnZ,
-      energy: eE,
-      heatCapacity: beta * beta * eVar,
-      freeEnergy: beta === 0 ? null : eLnZ / beta,
-      entropy: eLnZ + beta * eE,
-    },
-    sites,
-  };
+  return thermoRecord({
+    betaIndex, beta, sites, lnZ, energy, heatCapacity: beta * beta * variance,
+    errors: { lnZ: eLnZ, energy: eE, heatCapacity: beta * beta * eVar },
+  });
 }

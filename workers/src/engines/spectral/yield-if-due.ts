@@ -5,7 +5,7 @@
  * events are not starved. Cheap enough to call once per time point.
  */
 import { performance } from 'node:perf_hooks';
-import { abortError } from './abort-error.js';
+import { abortError } from '../abort-error.js';
 
 /** Longest stretch of synchronous work between two event-loop turns, ms. */
 export const YIELD_INTERVAL_MS = 25;

@@ -1,6 +1,7 @@
 /**
- * abortError — the error a spectral branch rejects with when its AbortSignal fires
- * (name 'AbortError', the signal's reason as `cause`), as the Engine contract asks.
+ * abortError — the error a branch rejects with when its AbortSignal fires (name 'AbortError',
+ * the signal's reason as `cause`), as the Engine contract asks (engine.ts). Shared by the exact
+ * and spectral engines.
  */
 
 /** An Error named 'AbortError' carrying `signal.reason`. */

@@ -1,11 +1,12 @@
 /**
  * sameTerms — whether two Pauli sums have the same strings with the same merged weights
- * (order ignored, exact comparison). When H1 and H0 agree term by term the spectral engine
- * reuses one decomposition and reports the stationarity check. Cost: O(T).
+ * (order ignored, exact comparison). When H1 and H0 agree term by term the doubled state is
+ * stationary under the quench (DESIGN.md §2): the exact engine then measures ‖Kψ‖, and the
+ * spectral engine reuses one decomposition and reports the stationarity check. Cost: O(T).
  */
-import type { PauliSum } from '../../physics/types.js';
+import type { PauliSum } from './types.js';
 
-/** True when a and b are the same operator term by term (weights merged, zeros dropped). */
+/** True when a and b are the same operator term by term (weights merged, zeros dropped; false when the site counts differ). */
 export function sameTerms(a: PauliSum, b: PauliSum): boolean {
   if (a.sites !== b.sites) return false;
   const merge = (s: PauliSum) => {
