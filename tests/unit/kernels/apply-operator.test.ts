@@ -26,6 +26,29 @@ describe('applyOperatorAffine', () => {
     }
   });
 
+  it('matches the dense matrix on the fused transverse-field pass and the real-entry pass (N = 5)', () => {
+    // One-term X groups (fused gather pass), a real two-term group (X0X1 + Y0Y1) and a complex
+    // one (X2Y3: entry ∝ i), with Z terms on the diagonal.
+    const n = 5;
+    const terms = [
+      ...Array.from({ length: n }, (_, i) => ({ x: 1 << i, z: 0, weight: 0.3 + 0.1 * i })),
+      { x: 3, z: 0, weight: 0.8 }, { x: 3, z: 3, weight: 0.8 },
+      { x: 12, z: 8, weight: -0.45 },
+      { x: 0, z: 6, weight: 1.1 }, { x: 0, z: 17, weight: -0.6 },
+    ];
+    const sum = { sites: n, terms };
+    const rand = seededRandom(31);
+    const vin = randomVector(rand, 2 * 2 ** n * 2);
+    const out0 = randomVector(rand, 2 * 2 ** n * 2);
+    const hv = matVec(sumDense(sum), vin, 2);
+    for (const tables of [true, false]) {
+      const out = out0.slice();
+      applyOperatorAffine(compileOperator(sum, { tables }), 2, vin, out, -1.3, 0.2, 0.5);
+      const expected = hv.map((h, k) => -1.3 * h + 0.2 * vin[k] + 0.5 * out0[k]);
+      expect(maxAbsDiff(out, expected)).toBeLessThan(TOL);
+    }
+  });
+
   it('gives the same result from the table-free compact form ({ tables: false })', () => {
     const rand = seededRandom(24);
     for (let n = 1; n <= 4; n++) {
