@@ -27,6 +27,11 @@ export const SweepPoint = z.object({
   values: z.array(z.number()),
   /** Absolute error estimate of each value (same length as `values`). */
   errors: z.array(z.number()),
+  /**
+   * Random samples the values rest on (the `typical` engine; absent for deterministic engines).
+   * In the service a point is re-sent with a larger count as more samples are merged.
+   */
+  samples: z.number().int().min(1).optional(),
 }).strict().refine((p) => p.values.length === p.errors.length, {
   path: ['errors'],
   params: { code: 'custom' },

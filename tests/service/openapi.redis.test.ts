@@ -124,5 +124,19 @@ describe('OpenAPI document', () => {
       // The check itself can fail: a wrong body is rejected.
       expect(check('/v1/sweeps/:id', 'get', 200, { ...(done.json() as object), status: 'exploded' })).toMatch(/status|enum/);
     });
+
+    it('should validate the status of a typical sweep, whose branches report their samples', async () => {
+      const h = bearer(token);
+      const spec = smallSpec({ label: 'doc-typical', lattice: { kind: 'chain', length: 6 }, engine: 'typical', tolerance: 0.05 });
+      const id = (await api.app.inject({ method: 'POST', url: '/v1/sweeps', headers: h, payload: spec })).json().id;
+      await waitFor(async () => (await api.app.inject({ method: 'GET', url: `/v1/sweeps/${id}`, headers: h })).json().status === 'succeeded', 'the typical sweep');
+      const done = (await api.app.inject({ method: 'GET', url: `/v1/sweeps/${id}`, headers: h })).json();
+      expect(done.branches[0].samples).toMatchObject({ final: true });
+      expect(check('/v1/sweeps/:id', 'get', 200, done)).toBeNull();
+      const result = await api.app.inject({ method: 'GET', url: `/v1/sweeps/${id}/result`, headers: h });
+      expect(check('/v1/sweeps/:id/result', 'get', 200, result.json())).toBeNull();
+      const samples = done.branches[0].samples;
+      expect(check('/v1/sweeps/:id', 'get', 200, { ...done, branches: [{ ...done.branches[0], samples: { ...samples, stored: -1 } }] })).not.toBeNull();
+    });
   });
 });

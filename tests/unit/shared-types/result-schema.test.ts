@@ -89,6 +89,12 @@ describe('SweepPoint', () => {
     const r = SweepPoint.safeParse(patch === null ? { ...point, betaIndex: -0 } : { ...point, ...patch });
     expect(r.success).toBe(patch === null);
   });
+
+  it('should accept a positive whole sample count and reject 0, fractions and NaN', () => {
+    expect(SweepPoint.safeParse({ ...point, samples: 16 }).success).toBe(true);
+    for (const samples of [0, 2.5, Number.NaN]) expect(SweepPoint.safeParse({ ...point, samples }).success, String(samples)).toBe(false);
+    expectTypeOf<SweepPoint['samples']>().toEqualTypeOf<number | undefined>();
+  });
 });
 
 describe('ThermoRecord', () => {

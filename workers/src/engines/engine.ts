@@ -6,6 +6,9 @@
 import type {
   DiagnosticsRecord, SweepPlan, SweepPoint, SweepSpec, ThermoRecord, SeriesInfo,
 } from '../../../shared-types/src/index.js';
+import type { BranchCheckpoints } from './branch-checkpoints.js';
+
+export type { BranchCheckpoints } from './branch-checkpoints.js';
 
 /** Callbacks an engine calls while it runs a branch. */
 export interface BranchSink {
@@ -23,6 +26,8 @@ export interface BranchOptions {
   signal?: AbortSignal;
   /** Skip points with timeIndex < resumeFrom[betaIndex] (still computed, not emitted). */
   resumeFrom?: Record<number, number>;
+  /** Where the branch keeps resumable state between attempts (branch-checkpoints.ts); optional. */
+  checkpoints?: BranchCheckpoints;
 }
 
 export interface Engine {

@@ -14,6 +14,7 @@ import { BranchAbortedError } from './errors/branch-aborted-error.js';
 import { BranchJobInvalidError } from './errors/branch-job-invalid-error.js';
 import { defaultEngineResolver, runStoredBranch, type EngineResolver } from './run-stored-branch.js';
 import { readSandboxEnv, type SandboxConfig } from './sandbox-env.js';
+import { SweepQueue } from './sweep-queue.js';
 
 /** Options of {@link createBranchProcessor}. */
 export interface BranchProcessorOptions {
@@ -30,6 +31,7 @@ export function createBranchProcessor(options: BranchProcessorOptions = {}) {
   const { resolveEngine = defaultEngineResolver } = options;
   let config: SandboxConfig | undefined = options.config;
   let store: RedisJobStore | undefined;
+  let queue: SweepQueue | undefined;
   const running = new Set<AbortController>();
 
   // Exit at once: a result sent to a dead parent fails, and BullMQ's child wrapper then loops
@@ -68,8 +70,13 @@ export function createBranchProcessor(options: BranchProcessorOptions = {}) {
     signal?.addEventListener('abort', forward, { once: true });
     running.add(controller);
     try {
+      // Sample blocks of sampled engines go to the same queue, with this job's attempts.
+      const enqueue = async (jobs: BranchJobData[]) => {
+        queue ??= new SweepQueue(store.redis, { prefix: config.prefix, attempts: maxAttempts });
+        await queue.addBranches(jobs);
+      };
       return await runStoredBranch({
-        store, data, attempt, workerId: config.workerId, resolveEngine, signal: controller.signal, pollMs: config.pollMs,
+        store, data, attempt, workerId: config.workerId, resolveEngine, signal: controller.signal, pollMs: config.pollMs, enqueue,
       });
     } catch (err) {
       if (err instanceof BranchAbortedError && err.reason === 'handback' && token) {

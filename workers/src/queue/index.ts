@@ -1,11 +1,14 @@
 /** Public door of the branch queue: producer, worker, processor core and job schemas. */
 export { BRANCH_QUEUE, branchJobId, queuePrefix } from './queue-names.js';
-export { BranchJobData, BranchJobResult } from './branch-job.js';
+export { BranchJobData, BranchJobResult, type BranchEnqueuer } from './branch-job.js';
 export { SweepQueue, type SweepQueueOptions, type QueueDepth } from './sweep-queue.js';
 export { startBranchWorker, type BranchWorkerOptions, type BranchWorkerHandle } from './start-branch-worker.js';
-export { runStoredBranch, defaultEngineResolver, type RunStoredBranchOptions, type EngineResolver } from './run-stored-branch.js';
+export {
+  runStoredBranch, defaultEngineResolver, DEFAULT_CHECKPOINT_SECONDS, type RunStoredBranchOptions, type EngineResolver,
+} from './run-stored-branch.js';
 export { createBranchProcessor, type BranchProcessorOptions } from './create-branch-processor.js';
-export { finalizeSweep, FINALIZE_CLAIM_MS } from './finalize-sweep.js';
+export { finalizeSweep, FINALIZE_CLAIM_MS, type FinalRecords, type FinalRecordSource } from './finalize-sweep.js';
+export { isSampledEngine, SampledBranch, runSampledJob, type SampledEngine } from './typical/index.js';
 export {
   computeSweepCheck, storeSweepCheck, summarizeCheck, CHECK_BUDGET_SECONDS, CHECK_MAX_THERMO_ORDER, CHECK_MAX_QUENCH_ORDER,
   type SweepCheckDocument, type SweepCheckOptions,

@@ -9,9 +9,10 @@ export function queuePrefix(storePrefix: string): string {
 }
 
 /**
- * Job id of a branch: `${sweepId}.${branchIndex}`. BullMQ forbids ':' in custom ids; the id
- * makes a second enqueue of the same branch a no-op (dedupe).
+ * Job id of a branch: `${sweepId}.${branchIndex}`, and of a sample block of a sampled engine's
+ * branch `${sweepId}.${branchIndex}.${start}+${count}`. BullMQ forbids ':' in custom ids; the
+ * id makes a second enqueue of the same branch or block a no-op (dedupe).
  */
-export function branchJobId(sweepId: string, branchIndex: number): string {
-  return `${sweepId}.${branchIndex}`;
+export function branchJobId(sweepId: string, branchIndex: number, samples?: { start: number; count: number }): string {
+  return samples ? `${sweepId}.${branchIndex}.${samples.start}+${samples.count}` : `${sweepId}.${branchIndex}`;
 }

@@ -2,16 +2,18 @@
  * Runs one branch of a stored sweep against a JobStore: the core of the queue processor,
  * free of BullMQ so it also runs in-process. It resumes after the points already stored,
  * streams new records to the store, polls for cancel and hand-back, and assembles the result
- * when it finishes the last branch.
+ * when it finishes the last branch. A sampled engine's branch (`typical`) runs instead as
+ * sample-block jobs whose estimate sharpens as they finish (queue/typical/run-sampled-job.ts).
  */
 import { SweepSpec } from '../../../shared-types/src/index.js';
-import type { Engine } from '../engines/engine.js';
+import type { BranchCheckpoints, Engine } from '../engines/engine.js';
 import type { BranchInfo, JobStore } from '../store/index.js';
-import type { BranchJobData, BranchJobResult } from './branch-job.js';
+import type { BranchEnqueuer, BranchJobData, BranchJobResult } from './branch-job.js';
 import { BranchAbortedError } from './errors/branch-aborted-error.js';
 import { BranchJobInvalidError } from './errors/branch-job-invalid-error.js';
 import { finalizeSweep } from './finalize-sweep.js';
 import { StoreSink } from './store-sink.js';
+import { isSampledEngine, runSampledJob } from './typical/index.js';
 
 /** Picks the engine for a spec; throws (or returns a refusal) for an impossible one. */
 export type EngineResolver = (spec: SweepSpec) => Promise<{ engine: Engine; feasible: boolean; reason: string }>;
@@ -32,6 +34,16 @@ export interface RunStoredBranchOptions {
   pollMs?: number;
   /** Sink batching window, ms. @defaultValue 20 */
   flushMs?: number;
+  /**
+   * Least wall time between two periodic engine checkpoints, seconds (engines that resume save
+   * their state through the store: engines/branch-checkpoints.ts). @defaultValue 60
+   */
+  checkpointSeconds?: number;
+  /**
+   * Where a sampled engine's branch (`typical`) queues its sample blocks (queue/typical/).
+   * @defaultValue none: the blocks run in this call, one after another
+   */
+  enqueue?: BranchEnqueuer;
 }
 
 /** The sweep runner's engine choice, loaded on first use (it pulls in every engine). */
@@ -43,6 +55,25 @@ export const defaultEngineResolver: EngineResolver = async (spec) => {
 
 const now = () => new Date().toISOString();
 
+/** Default least interval between periodic engine checkpoints, seconds. */
+export const DEFAULT_CHECKPOINT_SECONDS = 60;
+
+/**
+ * The checkpoint hook of one branch: load/save through the store. A save first drains the
+ * sink, so the stored points always reach at least as far as the checkpoint; a save the store
+ * refuses (the sweep ended) is ignored.
+ */
+function storeCheckpoints(store: JobStore, sweepId: string, branchIndex: number, sink: StoreSink, intervalSeconds: number): BranchCheckpoints {
+  return {
+    intervalSeconds,
+    load: () => store.loadCheckpoint(sweepId, branchIndex),
+    save: async (data) => {
+      await sink.drain();
+      await store.saveCheckpoint(sweepId, branchIndex, data);
+    },
+  };
+}
+
 /**
  * Runs the branch. Resolves with the outcome (done, cancelled, skipped); rejects with a
  * BranchAbortedError('handback') when the worker hands the branch back, with a
@@ -52,7 +83,7 @@ const now = () => new Date().toISOString();
 export async function runStoredBranch(options: RunStoredBranchOptions): Promise<BranchJobResult> {
   const {
     store, data, attempt = 1, workerId = 'local', resolveEngine = defaultEngineResolver, signal,
-    pollMs = 200, flushMs = 20,
+    pollMs = 200, flushMs = 20, checkpointSeconds = DEFAULT_CHECKPOINT_SECONDS,
   } = options;
   const { sweepId, branchIndex, betaIndices } = data;
   const skipped: BranchJobResult = { outcome: 'skipped', pointsWritten: 0, resumedFrom: {}, finalized: false };
@@ -67,6 +98,10 @@ export async function runStoredBranch(options: RunStoredBranchOptions): Promise<
   }
   const { engine, feasible, reason } = await resolveEngine(spec.data);
   if (!feasible) throw new BranchJobInvalidError(`engine refused the spec: ${reason}`);
+  if (isSampledEngine(engine)) {
+    return runSampledJob({ store, data, spec: spec.data, engine, attempt, workerId, pollMs, signal, enqueue: options.enqueue });
+  }
+  if (data.samples) throw new BranchJobInvalidError(`branch ${branchIndex} of ${sweepId}: the ${engine.name} engine does not run sample blocks`);
 
   const info: BranchInfo = { state: 'running', attempts: attempt, worker: workerId, startedAt: now(), finishedAt: null, error: null };
   if (!(await store.branchStarted(sweepId, branchIndex, info))) return skipped;
@@ -98,7 +133,8 @@ export async function runStoredBranch(options: RunStoredBranchOptions): Promise<
 
   try {
     try {
-      await engine.runBranch(spec.data, betaIndices, sink, { signal: controller.signal, resumeFrom });
+      const checkpoints = storeCheckpoints(store, sweepId, branchIndex, sink, checkpointSeconds);
+      await engine.runBranch(spec.data, betaIndices, sink, { signal: controller.signal, resumeFrom, checkpoints });
       await sink.drain();
     } catch (err) {
       if (controller.signal.aborted) {

@@ -43,11 +43,20 @@ export class SweepQueue {
 
   /** Adds one job per branch; re-adding an existing branch is a no-op (job id dedupe). */
   async enqueue(sweepId: string, plan: SweepPlan): Promise<void> {
-    await this.queue.addBulk(plan.branches.map((betaIndices, branchIndex) => ({
+    await this.addBranches(plan.branches.map((betaIndices, branchIndex) => ({ sweepId, branchIndex, betaIndices })));
+  }
+
+  /**
+   * Adds branch jobs as given (sampled engines add their sample blocks this way, from the
+   * sandbox that completes a round); a job whose id exists is not added again.
+   */
+  async addBranches(jobs: BranchJobData[]): Promise<void> {
+    if (jobs.length === 0) return;
+    await this.queue.addBulk(jobs.map((data) => ({
       name: 'branch',
-      data: { sweepId, branchIndex, betaIndices } satisfies BranchJobData,
+      data,
       opts: {
-        jobId: branchJobId(sweepId, branchIndex),
+        jobId: branchJobId(data.sweepId, data.branchIndex, data.samples),
         attempts: this.attempts,
         backoff: { type: 'exponential', delay: this.backoffMs },
         removeOnComplete: { age: 3600, count: 10_000 },

@@ -10,5 +10,6 @@ export { connectRedis } from './connect-redis.js';
 export {
   SweepStatus, BranchState, BranchInfo, BranchProgress, SweepRecord, TERMINAL_STATUSES, isTerminal,
   SweepCheckSummary, CheckSummaryVerdict,
-  type NewSweep, type CreateSweepOutcome, type BranchRecord, type SweepPage, type StoredRecords,
+  checkRecordVersion,
+  type NewSweep, type CreateSweepOutcome, type BranchRecord, type SweepPage, type StoredRecords, type StoredSample,
 } from './sweep-record.js';

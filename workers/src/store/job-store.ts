@@ -4,10 +4,11 @@
  * against the in-memory store without Redis ({@link MemoryJobStore}).
  *
  * Every write a branch makes is idempotent: a point is keyed by `${betaIndex}:${timeIndex}`
- * and the first write wins, so a retried branch or a zombie process never duplicates one.
+ * and the first write wins (for sampled engines: the highest version, the number of samples
+ * merged), so a retried branch or a zombie process never duplicates or regresses one.
  */
 import type {
-  BranchInfo, BranchRecord, CreateSweepOutcome, NewSweep, StoredRecords, SweepCheckSummary, SweepPage, SweepRecord,
+  BranchInfo, BranchRecord, CreateSweepOutcome, NewSweep, StoredRecords, StoredSample, SweepCheckSummary, SweepPage, SweepRecord,
   SweepStatus,
 } from './sweep-record.js';
 
@@ -55,6 +56,11 @@ export interface JobStore {
   branchStarted(id: string, index: number, info: BranchInfo): Promise<boolean>;
   /** Updates a branch's state without finishing it (e.g. retrying after an error). */
   branchUpdated(id: string, index: number, info: BranchInfo): Promise<void>;
+  /**
+   * Reports a running branch's progress (sampled engines: samples stored), unless the branch is
+   * already finished. False when it was finished (nothing changed).
+   */
+  branchProgress(id: string, index: number, info: BranchInfo): Promise<boolean>;
   /** Marks a branch done; `allDone` when every branch of the sweep is done. */
   branchFinished(id: string, index: number, info: BranchInfo): Promise<{ allDone: boolean }>;
   /** The branch's stored state, or null. */
@@ -62,10 +68,33 @@ export interface JobStore {
   /** Per β index: how many leading time points (0, 1, … without gaps) are stored. */
   storedPointCounts(id: string, betaIndices: number[], timeCount: number): Promise<Record<number, number>>;
   /**
-   * Writes records idempotently (first write of a key wins). Returns how many points were
-   * new, or null when the sweep is no longer queued or running (the writer should stop).
+   * Writes records idempotently: version 0 (the default) — the first write of a key wins;
+   * version v > 0 — replaces a stored record of a lower version, else ignored (see BranchRecord).
+   * Every stored record is appended to the event stream. Returns how many points were new
+   * (first write of their key), or null when the sweep is no longer queued or running (the
+   * writer should stop).
    */
   writeRecords(id: string, branchIndex: number, records: BranchRecord[]): Promise<number | null>;
+  /**
+   * Stores raw random samples of a branch (sampled engines), each once: a sample index already
+   * stored is left as it is and not counted again. Returns the branch's stored sample count
+   * after the write (an empty list just reads it), or null when the sweep is no longer queued
+   * or running.
+   */
+  writeSamples(id: string, branchIndex: number, samples: StoredSample[]): Promise<number | null>;
+  /** The stored bytes of the given samples of a branch, null where none is stored. */
+  readSamples(id: string, branchIndex: number, samples: number[]): Promise<Array<Buffer | null>>;
+  /** Deletes every stored sample of the sweep (after its result is stored). */
+  deleteSamples(id: string): Promise<void>;
+  /**
+   * Stores (replaces) a branch's engine checkpoint (opaque bytes). False, and nothing stored,
+   * when the sweep is no longer queued or running.
+   */
+  saveCheckpoint(id: string, branchIndex: number, data: Uint8Array): Promise<boolean>;
+  /** The branch's latest checkpoint, or null. */
+  loadCheckpoint(id: string, branchIndex: number): Promise<Uint8Array | null>;
+  /** Deletes every checkpoint of the sweep (when it succeeds). */
+  deleteCheckpoints(id: string): Promise<void>;
   /** Every stored point, thermodynamics and diagnostics record (JSON), for the final assembly. */
   readRecords(id: string): Promise<StoredRecords>;
   /** Claims the right to assemble the result (one process wins). */

@@ -10,8 +10,12 @@
  * | `{p}sweep:{id}:progress` | hash | branch index → points written (counted once per point) |
  * | `{p}sweep:{id}:done` | set | indices of finished branches |
  * | `{p}sweep:{id}:points` | hash | `${betaIndex}:${timeIndex}` → JSON point (the idempotency key) |
+ * | `{p}sweep:{id}:versions` | hash | `${kind}:${field}` → version of a re-writable record (sampled engines: samples merged) |
+ * | `{p}sweep:{id}:samples` | hash | `${branchIndex}:${sample}` → one random sample's raw sums (binary; queue/typical/sample-codec.ts) |
+ * | `{p}sweep:{id}:sample-counts` | hash | branch index → samples stored (counted once per sample) |
  * | `{p}sweep:{id}:thermo` | hash | β index → JSON thermodynamics |
  * | `{p}sweep:{id}:diag` | hash | β index → JSON diagnostics |
+ * | `{p}sweep:{id}:checkpoints` | hash | branch index → the branch's latest engine checkpoint (binary; deleted when the sweep succeeds) |
  * | `{p}sweep:{id}:events` | stream | live events (status, branch, thermo, point, diagnostics) |
  * | `{p}sweep:{id}:result` | string | the final result document (JSON) |
  * | `{p}sweep:{id}:check` | string | the check report against the series (JSON), written after the result |
@@ -27,7 +31,7 @@
  * | `{p}stream-token:{sha}` | string | JSON {owner, sweepId} of a short-lived event-stream token (EX) |
  * | `{p}worker:{wid}:handback` | string | set while worker `wid` hands its branches back (shutdown) |
  * | `{p}metrics:points` | string | points written, all sweeps (counter) |
- * | `{p}rl:` … | | rate-limit counters (@fastify/rate-limit) |
+ * | `{p}rl:tok:{tid}`, `{p}rl:ip:{addr}` | string | request counter of the current rate-limit window (PEXPIRE = window; services/api/src/gatekeeper.ts) |
  */
 
 /** The default key prefix. */
@@ -41,8 +45,16 @@ export interface StoreKeys {
   progress(id: string): string;
   done(id: string): string;
   points(id: string): string;
+  /** Versions of re-writable records (sampled engines). */
+  versions(id: string): string;
+  /** Raw random samples of sampled engines, by `${branchIndex}:${sample}`. */
+  samples(id: string): string;
+  /** Samples stored per branch. */
+  sampleCounts(id: string): string;
   thermo(id: string): string;
   diagnostics(id: string): string;
+  /** Engine checkpoints by branch index (binary). */
+  checkpoints(id: string): string;
   events(id: string): string;
   result(id: string): string;
   /** The check report (JSON). */
@@ -77,8 +89,12 @@ export function storeKeys(prefix: string = DEFAULT_KEY_PREFIX): StoreKeys {
     progress: (id) => `${sw(id)}:progress`,
     done: (id) => `${sw(id)}:done`,
     points: (id) => `${sw(id)}:points`,
+    versions: (id) => `${sw(id)}:versions`,
+    samples: (id) => `${sw(id)}:samples`,
+    sampleCounts: (id) => `${sw(id)}:sample-counts`,
     thermo: (id) => `${sw(id)}:thermo`,
     diagnostics: (id) => `${sw(id)}:diag`,
+    checkpoints: (id) => `${sw(id)}:checkpoints`,
     events: (id) => `${sw(id)}:events`,
     result: (id) => `${sw(id)}:result`,
     check: (id) => `${sw(id)}:check`,
@@ -86,6 +102,8 @@ export function storeKeys(prefix: string = DEFAULT_KEY_PREFIX): StoreKeys {
     allOfSweep: (id) => [
       keys.sweep(id), keys.branches(id), keys.progress(id), keys.done(id), keys.points(id),
       keys.thermo(id), keys.diagnostics(id), keys.events(id), keys.result(id), keys.check(id),
+      keys.checkpoints(id),
+      keys.versions(id), keys.samples(id), keys.sampleCounts(id),
     ],
     unqueued: () => `${prefix}unqueued`,
     ownerSweeps: (o) => `${prefix}owner:${safe(o)}:sweeps`,

@@ -7,9 +7,10 @@ import type { SweepHeader, SweepPlan, SweepSpec } from '../../../shared-types/sr
 import type { BranchControl, JobStore, ListOptions } from './job-store.js';
 import { newSweepId } from './new-sweep-id.js';
 import {
-  isTerminal, type BranchInfo, type BranchRecord, type CreateSweepOutcome, type NewSweep,
-  type StoredRecords, type SweepCheckSummary, type SweepPage, type SweepRecord, type SweepStatus,
+  checkRecordVersion, checkSampleIndex, isTerminal, type BranchInfo, type BranchRecord, type CreateSweepOutcome, type NewSweep,
+  type StoredRecords, type StoredSample, type SweepCheckSummary, type SweepPage, type SweepRecord, type SweepStatus,
 } from './sweep-record.js';
+import { writeVersioned } from './versioned-write.js';
 
 interface MemorySweep {
   id: string;
@@ -31,8 +32,15 @@ interface MemorySweep {
   points: Map<string, string>;
   thermo: Map<number, string>;
   diagnostics: Map<number, string>;
+  /** Versions of re-writable records, by `${kind}:${key}`. */
+  versions: Map<string, number>;
+  /** Raw samples by `${branchIndex}:${sample}`, and the count per branch. */
+  samples: Map<string, Buffer>;
+  sampleCounts: Map<number, number>;
   result: string | null;
   check: { json: string; summary: SweepCheckSummary } | null;
+  /** Engine checkpoints by branch index. */
+  checkpoints: Map<number, Uint8Array>;
   finalizeUntil: number;
 }
 
@@ -60,7 +68,8 @@ export class MemoryJobStore implements JobStore {
       spec: input.spec, plan: input.plan, header: input.header,
       branches: input.plan.branches.map(() => ({ state: 'queued', attempts: 0, worker: null, startedAt: null, finishedAt: null, error: null })),
       progress: input.plan.branches.map(() => 0), done: new Set(), points: new Map(), thermo: new Map(), diagnostics: new Map(),
-      result: null, check: null, finalizeUntil: 0,
+      versions: new Map(), samples: new Map(), sampleCounts: new Map(),
+      result: null, check: null, finalizeUntil: 0, checkpoints: new Map(),
     });
     this.dedupe.set(dedupeKey, id);
     this.unqueued.set(id, now.getTime());
@@ -135,6 +144,13 @@ export class MemoryJobStore implements JobStore {
     if (s) s.branches[index] = { ...info };
   }
 
+  async branchProgress(id: string, index: number, info: BranchInfo): Promise<boolean> {
+    const s = this.sweeps.get(id);
+    if (!s || s.done.has(index)) return false;
+    s.branches[index] = { ...info };
+    return true;
+  }
+
   async branchFinished(id: string, index: number, info: BranchInfo): Promise<{ allDone: boolean }> {
     const s = this.sweeps.get(id);
     if (!s) return { allDone: false };
@@ -163,20 +179,62 @@ export class MemoryJobStore implements JobStore {
     const s = this.sweeps.get(id);
     if (!s || isTerminal(s.status)) return null;
     let n = 0;
+    for (const r of records) checkRecordVersion(r.version);
     for (const r of records) {
       if (r.kind === 'point') {
         const key = `${r.betaIndex}:${r.timeIndex}`;
-        if (!s.points.has(key)) {
-          s.points.set(key, r.json);
+        if (writeVersioned(s.points, s.versions, key, `point:${key}`, r.json, r.version) === 'fresh') {
           s.progress[branchIndex]++;
           n++;
         }
       } else {
         const map = r.kind === 'thermo' ? s.thermo : s.diagnostics;
-        if (!map.has(r.betaIndex)) map.set(r.betaIndex, r.json);
+        writeVersioned(map, s.versions, r.betaIndex, `${r.kind}:${r.betaIndex}`, r.json, r.version);
       }
     }
     return n;
+  }
+
+  async writeSamples(id: string, branchIndex: number, samples: StoredSample[]): Promise<number | null> {
+    const s = this.sweeps.get(id);
+    if (!s || isTerminal(s.status)) return null;
+    for (const { sample } of samples) checkSampleIndex(sample);
+    for (const { sample, data } of samples) {
+      const key = `${branchIndex}:${sample}`;
+      if (s.samples.has(key)) continue;
+      s.samples.set(key, Buffer.from(data));
+      s.sampleCounts.set(branchIndex, (s.sampleCounts.get(branchIndex) ?? 0) + 1);
+    }
+    return s.sampleCounts.get(branchIndex) ?? 0;
+  }
+
+  async readSamples(id: string, branchIndex: number, samples: number[]): Promise<Array<Buffer | null>> {
+    const s = this.sweeps.get(id);
+    return samples.map((k) => {
+      const data = s?.samples.get(`${branchIndex}:${k}`);
+      return data ? Buffer.from(data) : null;
+    });
+  }
+
+  async deleteSamples(id: string): Promise<void> {
+    const s = this.sweeps.get(id);
+    s?.samples.clear();
+    s?.sampleCounts.clear();
+  }
+
+  async saveCheckpoint(id: string, branchIndex: number, data: Uint8Array): Promise<boolean> {
+    const s = this.sweeps.get(id);
+    if (!s || isTerminal(s.status)) return false;
+    s.checkpoints.set(branchIndex, data.slice());
+    return true;
+  }
+
+  async loadCheckpoint(id: string, branchIndex: number): Promise<Uint8Array | null> {
+    return this.sweeps.get(id)?.checkpoints.get(branchIndex)?.slice() ?? null;
+  }
+
+  async deleteCheckpoints(id: string): Promise<void> {
+    this.sweeps.get(id)?.checkpoints.clear();
   }
 
   async readRecords(id: string): Promise<StoredRecords> {

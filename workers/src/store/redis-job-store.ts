@@ -7,12 +7,14 @@ import type { Redis } from 'ioredis';
 import type { SweepHeader, SweepPlan, SweepSpec } from '../../../shared-types/src/index.js';
 import type { BranchControl, JobStore, ListOptions } from './job-store.js';
 import { storeKeys, type StoreKeys } from './keys.js';
-import { BRANCH_STATE, CREATE_SWEEP, STORED_COUNTS, TRANSITION, WRITE_RECORDS } from './lua/scripts.js';
+import { RedisCheckpoints } from './redis-checkpoints.js';
+import { BRANCH_STATE, CREATE_SWEEP, STORED_COUNTS, SWEEP_STATE, TRANSITION, WRITE_RECORDS } from './lua/scripts.js';
 import { newSweepId } from './new-sweep-id.js';
+import { readSamplesRedis, writeSamplesRedis } from './redis-samples.js';
 import { STORE_DEFAULTS, type StoreOptions } from './store-options.js';
 import {
-  BranchInfo, SweepCheckSummary, isTerminal, type BranchProgress, type BranchRecord, type CreateSweepOutcome,
-  type NewSweep, type StoredRecords, type SweepPage, type SweepRecord, type SweepStatus,
+  BranchInfo, SweepCheckSummary, checkRecordVersion, isTerminal, type BranchProgress, type BranchRecord, type CreateSweepOutcome,
+  type NewSweep, type StoredRecords, type StoredSample, type SweepPage, type SweepRecord, type SweepStatus,
 } from './sweep-record.js';
 
 type ScriptFn = (...args: (string | number)[]) => Promise<unknown>;
@@ -22,6 +24,7 @@ interface ScriptedRedis {
   bswTransition: ScriptFn;
   bswBranchState: ScriptFn;
   bswStoredCounts: ScriptFn;
+  bswSweepState: ScriptFn;
 }
 
 const SCRIPTS: Array<[keyof ScriptedRedis, string]> = [
@@ -30,6 +33,7 @@ const SCRIPTS: Array<[keyof ScriptedRedis, string]> = [
   ['bswTransition', TRANSITION],
   ['bswBranchState', BRANCH_STATE],
   ['bswStoredCounts', STORED_COUNTS],
+  ['bswSweepState', SWEEP_STATE],
 ];
 
 /** Sweep summary fields read for listings (no spec/plan/header parsing). */
@@ -47,6 +51,26 @@ function parseCheck(text: string | null | undefined): SweepCheckSummary | null {
   } catch {
     return null;
   }
+}
+
+/** A flat [field, value, …] reply as an object. */
+function pairsToRecord(flat: string[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (let i = 0; i + 1 < flat.length; i += 2) out[flat[i]] = flat[i + 1];
+  return out;
+}
+
+/** Branch states as stored (JSON) → parsed, remembered by text: a status poll re-reads the same few strings. */
+const branchInfoByText = new Map<string, BranchInfo>();
+function parseBranchInfo(text: string): BranchInfo {
+  let info = branchInfoByText.get(text);
+  if (!info) {
+    const parsed = BranchInfo.safeParse(JSON.parse(text));
+    info = parsed.success ? parsed.data : emptyBranch();
+    if (branchInfoByText.size >= 4096) branchInfoByText.clear();
+    branchInfoByText.set(text, info);
+  }
+  return { ...info };
 }
 
 /** Orders sweeps created in the same millisecond by one process (listing score = ms × 1000 + this). */
@@ -85,6 +109,7 @@ export class RedisJobStore implements JobStore {
   readonly retentionSeconds: number;
   readonly streamMaxLen: number;
   private readonly scripts: ScriptedRedis;
+  private readonly checkpoints: RedisCheckpoints;
   /** Parsed spec, plan and header by sweep id: written once at creation, read on every status poll. */
   private readonly fixed = new Map<string, FixedPart>();
 
@@ -99,6 +124,7 @@ export class RedisJobStore implements JobStore {
       if (typeof r[name] !== 'function') redis.defineCommand(name, { lua });
     }
     this.scripts = redis as unknown as ScriptedRedis;
+    this.checkpoints = new RedisCheckpoints(redis, this.keys);
   }
 
   async createSweep(input: NewSweep): Promise<CreateSweepOutcome> {
@@ -130,20 +156,16 @@ export class RedisJobStore implements JobStore {
   async getSweep(id: string): Promise<SweepRecord | null> {
     const k = this.keys;
     const cached = this.fixed.get(id);
-    const pipe = this.redis.multi();
-    if (cached) pipe.hmget(k.sweep(id), 'status', 'startedAt', 'finishedAt', 'error', 'check');
-    else pipe.hgetall(k.sweep(id));
-    const res = await pipe.hgetall(k.branches(id)).hgetall(k.progress(id)).exec();
-    if (!res) return null;
+    const [recRaw, branchesRaw, progressRaw] = (await this.scripts.bswSweepState(3, k.sweep(id), k.branches(id), k.progress(id), cached ? '0' : '1')) as (string | null)[][];
     let rec: Record<string, string>;
     let fixed: FixedPart;
     if (cached) {
-      const [status, startedAt, finishedAt, error, check] = res[0][1] as (string | null)[];
+      const [status, startedAt, finishedAt, error, check] = recRaw;
       if (!status) return null;
       fixed = cached;
       rec = { ...cached.rec, status, startedAt: startedAt ?? '', finishedAt: finishedAt ?? '', error: error ?? '', check: check ?? '' };
     } else {
-      rec = (res[0][1] ?? {}) as Record<string, string>;
+      rec = pairsToRecord(recRaw as string[]);
       if (!rec.id) return null;
       fixed = {
         rec: { id: rec.id, owner: rec.owner, label: rec.label, specHash: rec.specHash, engine: rec.engine, createdAt: rec.createdAt, pointsTotal: rec.pointsTotal },
@@ -153,11 +175,10 @@ export class RedisJobStore implements JobStore {
       };
       this.remember(id, fixed);
     }
-    const [branches, progress] = [res[1][1], res[2][1]].map((r) => (r ?? {}) as Record<string, string>);
+    const [branches, progress] = [branchesRaw, progressRaw].map((r) => pairsToRecord((r ?? []) as string[]));
     const nt = fixed.header.times.length;
     const list: BranchProgress[] = fixed.plan.branches.map((betaIndices, index) => {
-      const parsed = branches[index] ? BranchInfo.safeParse(JSON.parse(branches[index])) : null;
-      const info = parsed?.success ? parsed.data : emptyBranch();
+      const info = branches[index] ? parseBranchInfo(branches[index]) : emptyBranch();
       return { index, betaIndices, ...info, pointsDone: Number(progress[index] ?? 0), pointsTotal: betaIndices.length * nt };
     });
     return {
@@ -258,7 +279,7 @@ export class RedisJobStore implements JobStore {
     return { status: (res[0]?.[1] as SweepStatus | null) ?? null, handback: workerId ? res[1]?.[1] === 1 : false };
   }
 
-  private async branchState(id: string, index: number, info: BranchInfo, mode: 'start' | 'update' | 'finish'): Promise<[number, number, number]> {
+  private async branchState(id: string, index: number, info: BranchInfo, mode: 'start' | 'update' | 'progress' | 'finish'): Promise<[number, number, number]> {
     const k = this.keys;
     const json = JSON.stringify(info);
     const event = JSON.stringify({ index, ...info });
@@ -275,6 +296,11 @@ export class RedisJobStore implements JobStore {
 
   async branchUpdated(id: string, index: number, info: BranchInfo): Promise<void> {
     await this.branchState(id, index, info, 'update');
+  }
+
+  async branchProgress(id: string, index: number, info: BranchInfo): Promise<boolean> {
+    const [ok] = await this.branchState(id, index, info, 'progress');
+    return ok === 1;
   }
 
   async branchFinished(id: string, index: number, info: BranchInfo): Promise<{ allDone: boolean }> {
@@ -299,14 +325,39 @@ export class RedisJobStore implements JobStore {
     const k = this.keys;
     const args: (string | number)[] = [];
     for (const r of records) {
+      checkRecordVersion(r.version);
       const field = r.kind === 'point' ? `${r.betaIndex}:${r.timeIndex}` : String(r.betaIndex);
-      args.push(r.kind, field, r.json);
+      args.push(r.kind, field, r.version ?? 0, r.json);
     }
     const n = (await this.scripts.bswWriteRecords(
-      7, k.sweep(id), k.points(id), k.thermo(id), k.diagnostics(id), k.events(id), k.progress(id), k.pointsCounter(),
+      8, k.sweep(id), k.points(id), k.thermo(id), k.diagnostics(id), k.events(id), k.progress(id), k.pointsCounter(), k.versions(id),
       this.streamMaxLen, branchIndex, ...args,
     )) as number;
     return n < 0 ? null : n;
+  }
+
+  async writeSamples(id: string, branchIndex: number, samples: StoredSample[]): Promise<number | null> {
+    return writeSamplesRedis(this.redis, this.keys, id, branchIndex, samples);
+  }
+
+  async readSamples(id: string, branchIndex: number, samples: number[]): Promise<Array<Buffer | null>> {
+    return readSamplesRedis(this.redis, this.keys, id, branchIndex, samples);
+  }
+
+  async deleteSamples(id: string): Promise<void> {
+    await this.redis.del(this.keys.samples(id), this.keys.sampleCounts(id));
+  }
+
+  async saveCheckpoint(id: string, branchIndex: number, data: Uint8Array): Promise<boolean> {
+    return this.checkpoints.save(id, branchIndex, data);
+  }
+
+  async loadCheckpoint(id: string, branchIndex: number): Promise<Uint8Array | null> {
+    return this.checkpoints.load(id, branchIndex);
+  }
+
+  async deleteCheckpoints(id: string): Promise<void> {
+    await this.checkpoints.deleteAll(id);
   }
 
   async readRecords(id: string): Promise<StoredRecords> {
@@ -331,7 +382,8 @@ export class RedisJobStore implements JobStore {
     const owner = terminal ? await this.redis.hget(k.sweep(id), 'owner') : null;
     const event = JSON.stringify({ status: to, at: now, ...(extra.error ? { error: extra.error } : {}) });
     const keys = [k.sweep(id), k.events(id), owner !== null ? k.ownerActive(owner) : `${k.prefix}none`, k.result(id),
-      k.branches(id), k.progress(id), k.done(id), k.points(id), k.thermo(id), k.diagnostics(id)];
+      k.branches(id), k.progress(id), k.done(id), k.points(id), k.thermo(id), k.diagnostics(id),
+      k.versions(id), k.samples(id), k.sampleCounts(id), k.checkpoints(id)];
     const changed = await this.scripts.bswTransition(
       keys.length, ...keys,
       to, from.join(','), now, this.retentionSeconds, extra.error ?? '', this.streamMaxLen, event, extra.result ?? '', terminal ? '1' : '0',

@@ -32,6 +32,16 @@ export const BranchInfo = z.object({
   finishedAt: z.string().nullable(),
   /** Message of the latest failure, if any. */
   error: z.string().nullable(),
+  /**
+   * Sampled engines (`typical`) only: random samples stored for this branch and the current
+   * round's target (`stored` reaches `target` when the round is complete; `final` once no further
+   * round follows). Absent for deterministic engines.
+   */
+  samples: z.object({
+    stored: z.number().int().min(0),
+    target: z.number().int().min(0),
+    final: z.boolean(),
+  }).optional(),
 });
 export type BranchInfo = z.infer<typeof BranchInfo>;
 
@@ -111,11 +121,34 @@ export type CreateSweepOutcome =
   | { kind: 'existing'; id: string }
   | { kind: 'capped'; active: number };
 
-/** One record a running branch produces. */
+/**
+ * One record a running branch produces. `version` 0 (the default) is write-once: the first
+ * write of a key wins. A version > 0 (sampled engines: the number of samples merged) replaces a
+ * stored record of a lower version and is ignored otherwise; it never replaces a version-0 record.
+ */
 export type BranchRecord =
-  | { kind: 'thermo'; betaIndex: number; json: string }
-  | { kind: 'point'; betaIndex: number; timeIndex: number; json: string }
-  | { kind: 'diagnostics'; betaIndex: number; json: string };
+  | { kind: 'thermo'; betaIndex: number; json: string; version?: number }
+  | { kind: 'point'; betaIndex: number; timeIndex: number; json: string; version?: number }
+  | { kind: 'diagnostics'; betaIndex: number; json: string; version?: number };
+
+/** Checks a record version (absent = 0). @throws RangeError unless a non-negative integer below 2^53. */
+export function checkRecordVersion(version: number | undefined): void {
+  if (version !== undefined && !(Number.isSafeInteger(version) && version >= 0)) {
+    throw new RangeError(`record version must be a non-negative integer; got ${version}`);
+  }
+}
+
+/** Checks a sample index (a generator stream number). @throws RangeError unless an integer in [0, 2^32). */
+export function checkSampleIndex(sample: number): void {
+  if (!Number.isInteger(sample) || sample < 0 || sample >= 2 ** 32) throw new RangeError(`sample index must be an integer in [0, 2^32); got ${sample}`);
+}
+
+/** One stored random sample of a branch (an opaque encoding; queue/typical/sample-codec.ts). */
+export interface StoredSample {
+  /** Sample index k. */
+  sample: number;
+  data: Buffer;
+}
 
 /** A page of the owner's sweeps, newest first. */
 export interface SweepPage {

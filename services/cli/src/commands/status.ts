@@ -12,7 +12,11 @@ interface StatusReply {
   pointsDone: number;
   pointsTotal: number;
   progress: number;
-  branches: Array<{ index: number; betaIndices: number[]; state: string; attempts: number; pointsDone: number; pointsTotal: number; worker: string | null; error: string | null }>;
+  branches: Array<{
+    index: number; betaIndices: number[]; state: string; attempts: number; pointsDone: number; pointsTotal: number; worker: string | null; error: string | null;
+    /** Sampled engines (typical): samples stored of the current round's target. */
+    samples?: { stored: number; target: number; final: boolean };
+  }>;
   timings: { createdAt: string; startedAt: string | null; finishedAt: string | null; queuedSeconds: number; runSeconds: number | null };
   plan: { engine: string; reason: string; seconds: number; memoryBytes: number; accuracy: number };
   betas: number[];
@@ -36,7 +40,8 @@ export function formatStatus(s: StatusReply): string {
   }
   for (const b of s.branches) {
     const betas = b.betaIndices.map((i) => s.betas[i]).join(', ');
-    lines.push(`  branch ${String(b.index).padStart(3)}  β=${betas.padEnd(12)} ${b.state.padEnd(9)} ${b.pointsDone}/${b.pointsTotal}` +
+    const samples = !b.samples ? '' : b.samples.final ? `  ${b.samples.stored} samples (final)` : `  samples ${b.samples.stored}/${b.samples.target} so far`;
+    lines.push(`  branch ${String(b.index).padStart(3)}  β=${betas.padEnd(12)} ${b.state.padEnd(9)} ${b.pointsDone}/${b.pointsTotal}${samples}` +
       `${b.attempts > 1 ? `  attempt ${b.attempts}` : ''}${b.worker ? `  on ${b.worker}` : ''}${b.error ? `  (${b.error})` : ''}`);
   }
   return lines.join('\n') + '\n';

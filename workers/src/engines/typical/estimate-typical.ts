@@ -163,7 +163,7 @@ export function estimateTypicalBeta(
       errorMax = Math.max(errorMax, e);
       errs.push(e);
     }
-    points.push({ betaIndex, timeIndex: t, values: Array.from(js.estimate), errors: errs });
+    points.push({ betaIndex, timeIndex: t, values: Array.from(js.estimate), errors: errs, samples: R });
   }
 
   let h1Drift = 0, normDrift = 0, matvecs = 0;

@@ -5,7 +5,7 @@
  * (values and jackknife errors from any set of samples), and the plan's sample schedule.
  */
 export { TypicalEngine } from './typical-engine.js';
-export type { TypicalEngineOptions } from './typical-engine.js';
+export type { TypicalEngineOptions, TypicalSampling } from './typical-engine.js';
 export {
   planTypical, typicalPlanDetails, TYPICAL_MEMORY_BUDGET_BYTES, ASSUMED_FLOPS_PER_SECOND,
 } from './plan-typical.js';
@@ -18,7 +18,7 @@ export type { TypicalBetaEstimate, EstimateOptions } from './estimate-typical.js
 export type { TypicalSampleRecord, TypicalSamples, SampleRange } from './typical-samples.js';
 export { typicalLayout } from './typical-layout.js';
 export type { TypicalLayout } from './typical-layout.js';
-export { typicalSetup, MAX_TYPICAL_SITES, TABLE_SITES_MAX } from './typical-setup.js';
+export { typicalSetup, usesTables, MAX_TYPICAL_SITES, TABLE_SITES_MAX } from './typical-setup.js';
 export type { TypicalSetup } from './typical-setup.js';
 export {
   PILOT_SAMPLES, MIN_SAMPLES, MAX_TYPICAL_SAMPLES, SAMPLE_SAFETY, nextSampleCount, samplesFor,

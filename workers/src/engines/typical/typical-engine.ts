@@ -21,7 +21,9 @@
  * and the diagnostics then say so (extra.met = false, extra.samples, extra.errorTarget).
  * Every sample walks the branch's β list in ascending β. Records are emitted once all rounds
  * are done: thermodynamics, then the points, then the diagnostics, per β.
- * Fan-out: runTypicalSamples / mergeTypicalSamples / estimateTypicalBeta do the same in pieces.
+ * Fan-out: runTypicalSamples / mergeTypicalSamples / estimateTypicalBeta do the same in pieces;
+ * the service replays these rounds with sample blocks as queue jobs (sampling(), sampleRunner();
+ * workers/src/queue/typical/), with the same decisions and the same final numbers.
  * Determinism: sample k uses the random phases of (spec.seed, k); the counts chosen depend
  * only on the (deterministic) measurements, so a branch's output is a function of the spec.
  */
@@ -46,6 +48,12 @@ export interface TypicalEngineOptions {
   maxSamples?: number;
   /** Samples of the first round. @defaultValue PILOT_SAMPLES */
   pilotSamples?: number;
+}
+
+/** The fixed parts of the sample schedule: rounds start with `pilot` samples and never exceed `cap`. */
+export interface TypicalSampling {
+  readonly pilot: number;
+  readonly cap: number;
 }
 
 /** The typical engine (name 'typical'). */
@@ -73,19 +81,34 @@ export class TypicalEngine implements Engine {
     return seriesLabels(spec, buildLattice(spec.lattice));
   }
 
+  /**
+   * The sample schedule's fixed parts for a spec: the pilot round's size and the cap (the
+   * service replays the same rounds from stored samples, queue/typical/sample-rounds.ts).
+   * @throws RangeError when the cap leaves no room for a jackknife.
+   */
+  sampling(spec: SweepSpec): TypicalSampling {
+    const cap = Math.floor(Math.min(this.#maxSamples, typicalPlanDetails(spec).cap));
+    if (cap < 2) throw new RangeError(`the sample cap ${cap} leaves no room for a jackknife (memory budget)`);
+    return { pilot: Math.min(this.#pilot, cap), cap };
+  }
+
+  /** A runner of sample ranges through the branch's β indices (the service's unit of fan-out). */
+  sampleRunner(spec: SweepSpec, betaIndices: readonly number[]): Pick<TypicalSampleRunner, 'run' | 'order'> {
+    return new TypicalSampleRunner(spec, betaIndices);
+  }
+
   /** Runs the branch's β indices in rounds of samples (see file header). */
   async runBranch(spec: SweepSpec, betaIndices: number[], sink: BranchSink, options: BranchOptions = {}): Promise<void> {
     const { signal, resumeFrom = {} } = options;
     const runner = new TypicalSampleRunner(spec, betaIndices);
     const order = runner.order;
     if (order.length === 0) return;
-    const cap = Math.floor(Math.min(this.#maxSamples, typicalPlanDetails(spec).cap));
-    if (cap < 2) throw new RangeError(`the sample cap ${cap} leaves no room for a jackknife (memory budget)`);
+    const { pilot, cap } = this.sampling(spec);
     const errorTarget = spec.tolerance;
     const statTarget = (1 - TRUNCATION_SHARE) * errorTarget;
 
-    let samples = await runner.run({ start: 0, count: Math.min(this.#pilot, cap) }, { signal });
-    let count = Math.min(this.#pilot, cap);
+    let samples = await runner.run({ start: 0, count: pilot }, { signal });
+    let count = pilot;
     let rounds = 1;
     let estimates: TypicalBetaEstimate[];
     for (;;) {
@@ -98,7 +121,7 @@ export class TypicalEngine implements Engine {
       count = next;
       rounds += 1;
     }
-    const extra = { sampleCap: cap, pilotSamples: Math.min(this.#pilot, cap), rounds, tables: runner.setup.tables };
+    const extra = { sampleCap: cap, pilotSamples: pilot, rounds, tables: runner.setup.tables };
     for (const est of estimates) {
       const b = est.thermo.betaIndex;
       sink.thermo(est.thermo);

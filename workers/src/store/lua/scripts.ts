@@ -45,21 +45,44 @@ return {'created', ARGV[1]}
 `;
 
 /**
- * KEYS: record, points, thermo, diag, events, progress, pointsCounter
- * ARGV: streamMaxLen, branchIndex, <kind, field, json>…
+ * KEYS: record, points, thermo, diag, events, progress, pointsCounter, versions
+ * ARGV: streamMaxLen, branchIndex, <kind, field, version, json>…
+ * Version 0: HSETNX (the first write wins). Version v > 0: replaces a record stored with a lower
+ * version (kept in `versions` under `${kind}:${field}`), never a version-0 one, and is ignored
+ * otherwise. Every stored write appends its stream event; a point counts as new (progress,
+ * counter, return value) only on its first write.
  * Returns the number of new points, or -1 when the sweep is not queued or running.
  */
 export const WRITE_RECORDS = `
 local st = redis.call('HGET', KEYS[1], 'status')
 if st ~= 'queued' and st ~= 'running' then return -1 end
 local n = 0
-for i = 3, #ARGV, 3 do
+for i = 3, #ARGV, 4 do
   local kind = ARGV[i]
+  local field = ARGV[i + 1]
+  local version = tonumber(ARGV[i + 2])
+  local json = ARGV[i + 3]
   local h = KEYS[4]
   if kind == 'point' then h = KEYS[2] elseif kind == 'thermo' then h = KEYS[3] end
-  if redis.call('HSETNX', h, ARGV[i + 1], ARGV[i + 2]) == 1 then
-    redis.call('XADD', KEYS[5], 'MAXLEN', '~', ARGV[1], '*', 'type', kind, 'data', ARGV[i + 2])
-    if kind == 'point' then
+  local fresh = false
+  local stored = false
+  if version == 0 then
+    fresh = redis.call('HSETNX', h, field, json) == 1
+    stored = fresh
+  else
+    local vkey = kind .. ':' .. field
+    local old = tonumber(redis.call('HGET', KEYS[8], vkey))
+    local exists = redis.call('HEXISTS', h, field) == 1
+    if (old == nil and not exists) or (old ~= nil and old < version) then
+      redis.call('HSET', h, field, json)
+      redis.call('HSET', KEYS[8], vkey, version)
+      fresh = not exists
+      stored = true
+    end
+  end
+  if stored then
+    redis.call('XADD', KEYS[5], 'MAXLEN', '~', ARGV[1], '*', 'type', kind, 'data', json)
+    if kind == 'point' and fresh then
       redis.call('HINCRBY', KEYS[6], ARGV[2], 1)
       n = n + 1
     end
@@ -107,9 +130,11 @@ return 1
 
 /**
  * KEYS: record, branches, events, done
- * ARGV: index, branchJson, streamMaxLen, eventJson, mode ('start' | 'update' | 'finish'), nowIso
+ * ARGV: index, branchJson, streamMaxLen, eventJson, mode ('start' | 'update' | 'progress' | 'finish'), nowIso
  * 'start' refuses (returns {0}) unless the sweep is queued or running and moves queued → running.
- * 'finish' adds the index to the done set. Returns {ok, doneCount, branchCount}.
+ * 'progress' refuses (returns {0}) once the branch is in the done set (a late progress report of
+ * a sampled branch must not undo its finish). 'finish' adds the index to the done set.
+ * Returns {ok, doneCount, branchCount}.
  */
 export const BRANCH_STATE = `
 local st = redis.call('HGET', KEYS[1], 'status')
@@ -123,6 +148,7 @@ if mode == 'start' then
       'data', cjson.encode({status = 'running', at = ARGV[6]}))
   end
 end
+if mode == 'progress' and redis.call('SISMEMBER', KEYS[4], ARGV[1]) == 1 then return {0, 0, 0} end
 redis.call('HSET', KEYS[2], ARGV[1], ARGV[2])
 if mode == 'finish' then redis.call('SADD', KEYS[4], ARGV[1]) end
 redis.call('XADD', KEYS[3], 'MAXLEN', '~', ARGV[3], '*', 'type', 'branch', 'data', ARGV[4])
@@ -144,4 +170,20 @@ for i = 2, #ARGV do
   out[#out + 1] = t
 end
 return out
+`;
+
+/**
+ * KEYS: record, branches, progress
+ * ARGV: '1' for the whole record hash (HGETALL), '0' for its changing fields only
+ * Returns {record (flat HGETALL, or status, startedAt, finishedAt, error, check), branches flat, progress flat}:
+ * one command per status read instead of a MULTI of three.
+ */
+export const SWEEP_STATE = `
+local rec
+if ARGV[1] == '1' then
+  rec = redis.call('HGETALL', KEYS[1])
+else
+  rec = redis.call('HMGET', KEYS[1], 'status', 'startedAt', 'finishedAt', 'error', 'check')
+end
+return {rec, redis.call('HGETALL', KEYS[2]), redis.call('HGETALL', KEYS[3])}
 `;
