@@ -78,6 +78,9 @@ describe('sweep check report', () => {
     it('should show the check summary on the status report, matching the report', async () => {
       const report = (await get(`/v1/sweeps/${id}/check`)).json() as Report;
       expect(status.check).toEqual({ verdict: 'agree', flagged: false, counts: report.summary, note: null });
+      // The listing carries the same summary (the dashboard's list shows it).
+      const listed = (await get('/v1/sweeps?status=succeeded')).json().items.find((s: { id: string }) => s.id === id);
+      expect(listed.check).toEqual(status.check);
       expect(report.summary.agree + report.summary.disagree + report.summary.outsideWindow).toBe(report.entries.length);
     });
 

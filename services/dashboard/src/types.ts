@@ -34,6 +34,8 @@ export interface SweepSummary {
   error: string | null;
   pointsDone: number;
   pointsTotal: number;
+  /** The series cross-check in brief; null until computed. */
+  check: { verdict: string; flagged: boolean; counts: { agree: number; disagree: number; outsideWindow: number } } | null;
 }
 
 /** GET /v1/sweeps. */

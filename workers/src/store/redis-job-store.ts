@@ -37,10 +37,10 @@ const SCRIPTS: Array<[keyof ScriptedRedis, string]> = [
 ];
 
 /** Sweep summary fields read for listings (no spec/plan/header parsing). */
-const SUMMARY_FIELDS = ['id', 'owner', 'status', 'label', 'specHash', 'engine', 'createdAt', 'startedAt', 'finishedAt', 'error', 'pointsTotal'] as const;
+const SUMMARY_FIELDS = ['id', 'owner', 'status', 'label', 'specHash', 'engine', 'createdAt', 'startedAt', 'finishedAt', 'error', 'pointsTotal', 'check'] as const;
 
-/** A sweep as listed: the record without spec, plan, header and branches. */
-export type SweepSummary = Omit<SweepRecord, 'spec' | 'plan' | 'header' | 'branches' | 'check'>;
+/** A sweep as listed: the record without spec, plan, header and branches (with the check summary). */
+export type SweepSummary = Omit<SweepRecord, 'spec' | 'plan' | 'header' | 'branches'>;
 
 /** The check summary field of the record hash, or null when absent or unreadable. */
 function parseCheck(text: string | null | undefined): SweepCheckSummary | null {
@@ -202,7 +202,7 @@ export class RedisJobStore implements JobStore {
     return {
       id: rec.id, owner: rec.owner, status: rec.status as SweepStatus, label: rec.label ?? '', specHash: rec.specHash,
       engine: rec.engine, createdAt: rec.createdAt, startedAt: orNull(rec.startedAt), finishedAt: orNull(rec.finishedAt),
-      error: orNull(rec.error), pointsDone, pointsTotal: Number(rec.pointsTotal ?? 0),
+      error: orNull(rec.error), pointsDone, pointsTotal: Number(rec.pointsTotal ?? 0), check: parseCheck(rec.check),
     };
   }
 

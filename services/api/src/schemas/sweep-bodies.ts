@@ -87,6 +87,8 @@ export const SweepSummaryBody = z.object({
   error: z.string().nullable(),
   pointsDone: z.number().int(),
   pointsTotal: z.number().int(),
+  /** Summary of the check against the series; null until a succeeded sweep's check is stored. */
+  check: SweepCheckSummary.nullable(),
 }).meta({ id: 'SweepSummary' });
 
 export const ListQuery = z.object({

@@ -10,6 +10,15 @@ import { statusBadge } from './status-badge.js';
 const REFRESH_MS = 4000;
 const STATUSES = ['', 'queued', 'running', 'succeeded', 'failed', 'cancelled'] as const;
 
+/** The series cross-check in one cell: flagged disagreements stand out; blank until computed. */
+function checkCell(s: SweepSummary): HTMLElement | string {
+  const c = s.check;
+  if (!c) return s.status === 'succeeded' ? 'pending' : '—';
+  if (c.flagged) return h('span', { class: 'warn', title: `${c.counts.disagree} value(s) disagree with the series inside its window` }, `⚠ ${c.counts.disagree} disagree`);
+  if (c.verdict === 'agree') return h('span', { class: 'ok', title: `${c.counts.agree} value(s) checked inside the series window` }, `✓ ${c.counts.agree} agree`);
+  return h('span', { title: c.verdict }, c.verdict === 'no-window' ? 'no window' : c.verdict);
+}
+
 /** The list view; returns its element and a stop function. */
 export function listView(): { el: HTMLElement; stop: () => void } {
   let items: SweepSummary[] = [];
@@ -32,6 +41,7 @@ export function listView(): { el: HTMLElement; stop: () => void } {
         h('progress', { max: '100', value: String(pct), 'aria-label': `progress of ${s.label || s.id}`, 'aria-valuetext': `${pct} % (${s.pointsDone} of ${s.pointsTotal} points)` }),
         h('span', { class: 'progress-text' }, `${s.pointsDone}/${s.pointsTotal}`)),
       h('td', {}, s.engine),
+      h('td', {}, checkCell(s)),
       h('td', {}, h('time', { datetime: s.createdAt, title: new Date(s.createdAt).toLocaleString() }, age(s.createdAt))),
     );
   };
@@ -45,7 +55,7 @@ export function listView(): { el: HTMLElement; stop: () => void } {
     replace(body, h('div', { class: 'table-scroll', tabindex: '0', role: 'region', 'aria-label': 'Sweeps table' },
       h('table', { class: 'sweeps' },
         h('caption', { class: 'visually-hidden' }, 'Your sweeps, newest first'),
-        h('thead', {}, h('tr', {}, ...['Sweep', 'Status', 'Progress', 'Engine', 'Submitted'].map((c) => h('th', { scope: 'col' }, c)))),
+        h('thead', {}, h('tr', {}, ...['Sweep', 'Status', 'Progress', 'Engine', 'Series check', 'Submitted'].map((c) => h('th', { scope: 'col' }, c)))),
         h('tbody', {}, ...items.map(row)))));
   };
 
