@@ -8,22 +8,23 @@
  *    S = sweeps, k = kept): 8mnr + 8mr² + S·21r³ + 8k(m + n)r (truncated-svd.ts header).
  * 2. mps:ising-quench:L=64: H0 Ising J = 1, hx = 1.2 → H1 hx = 1.0, β ∈ {0.5, 1, 2},
  *    t = 0, 0.5, …, 5, χ ≤ 64, discarded weight ≤ 1e-12 per update, fourth order, dt = 0.05,
- *    one β per run (a branch); against the free-fermion engine (Lieb–Schultz–Mattis 1961;
- *    Pfeuty 1970): wall time, peak RSS, the largest deviation of ⟨X_i⟩, ⟨Z_iZ_{i+1}⟩ at each
- *    time, the last time with deviation ≤ 1e-5, bond dimensions and the engine's estimates.
- * Environment overrides for a quick run: BENCH_MPS_BETAS="1", BENCH_MPS_TMAX=1; BENCH_MPS_SKIP_SVD=1
- * skips part 1; BENCH_MPS_PROGRESS=1 prints the wall time at every grid point to stderr.
+ *    each β in its own child process (mps-quench-run.ts: a branch, its own peak RSS), against
+ *    the free-fermion engine (Lieb–Schultz–Mattis 1961; Pfeuty 1970): wall time, peak RSS, the
+ *    largest deviation of ⟨X_i⟩, ⟨Z_iZ_{i+1}⟩ at each time, the last time with deviation
+ *    ≤ 1e-5, bond dimensions, the engine's estimates and the checkpoint size.
+ * Environment overrides: BENCH_MPS_BETAS="1", BENCH_MPS_TMAX=1; BENCH_MPS_BUDGET_S=600 aborts
+ * each β after that much wall time and reports how far it got (default: none);
+ * BENCH_MPS_SKIP_SVD=1 skips part 1; BENCH_MPS_PROGRESS=1 prints the wall time at every grid
+ * point to stderr.
  * Inputs from a seeded RNG outside the timed loop; results are checked for NaN.
  *
  * Run: npx tsx tests/bench/mps/mps.bench.ts
  */
-import { SweepSpec } from '../../../shared-types/src/index.js';
-import type { SweepPoint } from '../../../shared-types/src/index.js';
-import { FreeFermionEngine } from '../../../workers/src/engines/free-fermion/index.js';
-import { MpsEngine } from '../../../workers/src/engines/mps/index.js';
+import { spawnSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
 import { createSvdWorkspace, truncatedSvdUnchecked } from '../../../workers/src/tensor/index.js';
 import type { SvdReport } from '../../../workers/src/tensor/index.js';
-import { type BenchRecord, median, peakRssMb, printRecords, seededRandom } from '../bench-record.js';
+import { type BenchRecord, median, printRecords, seededRandom } from '../bench-record.js';
 
 function randomMatrix(n: number, seed: number): Float64Array {
   const rand = seededRandom(seed);
@@ -96,72 +97,24 @@ function svdRecords(): BenchRecord[] {
   return out;
 }
 
-async function collectPoints(engine: { runBranch: MpsEngine['runBranch'] }, s: SweepSpec): Promise<{ points: SweepPoint[]; extra: Record<string, unknown> }> {
-  const points: SweepPoint[] = [];
-  let extra: Record<string, unknown> = {};
-  const t0 = performance.now();
-  await engine.runBranch(s, [0], {
-    thermo: () => {},
-    point: (p) => {
-      points.push(p);
-      if (process.env.BENCH_MPS_PROGRESS) console.error(`  t index ${p.timeIndex} after ${((performance.now() - t0) / 1000).toFixed(0)} s`);
-    },
-    diagnostics: (d) => { extra = d.extra; },
+/** One β of the quench in a child process (its own peak RSS); see mps-quench-run.ts. */
+function quenchRecord(beta: number, tmax: number, budget: number): BenchRecord {
+  const script = fileURLToPath(new URL('./mps-quench-run.ts', import.meta.url));
+  const r = spawnSync(process.execPath, ['--import', 'tsx', script, String(beta), String(tmax), String(budget)], {
+    encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'], maxBuffer: 16 * 2 ** 20,
   });
-  return { points, extra };
+  const line = r.stdout.split('\n').find((l) => l.startsWith('@@quench '));
+  if (r.status !== 0 || !line) throw new Error(`mps-quench-run β = ${beta} failed (exit ${r.status})`);
+  return JSON.parse(line.slice('@@quench '.length)) as BenchRecord;
 }
 
-async function quenchRecords(): Promise<BenchRecord[]> {
+function quenchRecords(): BenchRecord[] {
   const betas = (process.env.BENCH_MPS_BETAS ?? '0.5,1,2').split(',').map(Number);
   const tmax = Number(process.env.BENCH_MPS_TMAX ?? 5);
+  const budget = Number(process.env.BENCH_MPS_BUDGET_S ?? 0);
   const out: BenchRecord[] = [];
   for (const beta of betas) {
-    const s = SweepSpec.parse({
-      lattice: { kind: 'chain', length: 64 },
-      h0: { model: 'ising', J: 1, hx: 1.2 },
-      h1: { model: 'ising', J: 1, hx: 1.0 },
-      betas: [beta],
-      times: { start: 0, stop: tmax, count: Math.round(tmax / 0.5) + 1 },
-      observables: [{ kind: 'site', pauli: 'X', perSite: true }, { kind: 'pair', paulis: 'ZZ', perPair: true }],
-      tolerance: 1e-5,
-      mps: { maxBond: 64, truncation: 1e-12, trotterOrder: 4, dt: 0.05 },
-    });
-    const reference = await collectPoints(new FreeFermionEngine(), s);
-    const t0 = performance.now();
-    const run = await collectPoints(new MpsEngine(), s);
-    const ms = performance.now() - t0;
-    const dev: number[] = [];
-    const bar: number[] = [];
-    for (const p of run.points) {
-      const q = reference.points.find((x) => x.timeIndex === p.timeIndex)!;
-      let d = 0;
-      let e = 0;
-      p.values.forEach((v, k) => {
-        if (!Number.isFinite(v)) throw new Error('NaN in the mps values');
-        d = Math.max(d, Math.abs(v - q.values[k]));
-        e = Math.max(e, p.errors[k]);
-      });
-      dev.push(d);
-      bar.push(e);
-    }
-    let lastGood = -1;
-    for (let k = 0; k < dev.length && dev[k] <= 1e-5; k++) lastGood = k;
-    const step = tmax / (dev.length - 1);
-    out.push({
-      label: `mps:ising-quench:beta=${beta}:size=64`,
-      medianMs: ms,
-      extra: {
-        peakRssMb: peakRssMb(),
-        tWithin1e5: lastGood < 0 ? -1 : lastGood * step,
-        maxDeviation: Math.max(...dev),
-        deviationByTime: dev.map((x) => x.toExponential(1)).join(','),
-        errorBarByTime: bar.map((x) => x.toExponential(1)).join(','),
-        bondByTime: String(run.extra.bondByTime),
-        discardedWeightSum: Number(run.extra.discardedWeightSum),
-        trotterErrorEstimate: Number(run.extra.trotterErrorEstimate),
-        updates: Number(run.extra.imaginaryUpdates) + Number(run.extra.realUpdates),
-      },
-    });
+    out.push(quenchRecord(beta, tmax, budget));
     printRecords(out.slice(-1));
   }
   return out;
@@ -171,7 +124,7 @@ async function quenchRecords(): Promise<BenchRecord[]> {
 export async function run(): Promise<BenchRecord[]> {
   const svd = process.env.BENCH_MPS_SKIP_SVD ? [] : svdRecords();
   printRecords(svd);
-  return [...svd, ...(await quenchRecords())];
+  return [...svd, ...quenchRecords()];
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

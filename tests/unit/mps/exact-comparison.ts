@@ -20,19 +20,32 @@
 import { expect } from 'vitest';
 import type { SweepSpecInput } from '../../../shared-types/src/index.js';
 import { ExactEngine } from '../../../workers/src/engines/exact/index.js';
+import { buildLattice } from '../../../workers/src/lattice/index.js';
 import { MpsEngine } from '../../../workers/src/engines/mps/index.js';
 import { collect, compare, spec } from './collect.js';
 
 const exact = new ExactEngine();
 const mps = new MpsEngine();
 
+/** Where a comparison differs from the default: the lattice (an open chain of L sites), β and the last time. */
+export interface ComparisonOptions {
+  readonly lattice?: SweepSpecInput['lattice'];
+  /** The non-zero β. @defaultValue 0.8 */
+  readonly beta?: number;
+  /** Last grid time (grid of 4 times from 0). @defaultValue 0.6 */
+  readonly stop?: number;
+}
+
 /** The spec of one comparison: L sites, H0, H1, fourth order at step dt, truncation off. */
-export function exactComparisonInput(L: number, h0: SweepSpecInput['h0'], h1: SweepSpecInput['h1'], dt: number): SweepSpecInput {
+export function exactComparisonInput(
+  L: number, h0: SweepSpecInput['h0'], h1: SweepSpecInput['h1'], dt: number, options: ComparisonOptions = {},
+): SweepSpecInput {
+  const { lattice = { kind: 'chain', length: L }, beta = 0.8, stop = 0.6 } = options;
   return {
-    lattice: { kind: 'chain', length: L },
+    lattice,
     h0, h1,
-    betas: [0, 0.8],
-    times: { start: 0, stop: 0.6, count: 4 },
+    betas: [0, beta],
+    times: { start: 0, stop, count: 4 },
     observables: [
       { kind: 'site', pauli: 'X', perSite: true },
       { kind: 'site', pauli: 'Y', perSite: true },
@@ -52,13 +65,14 @@ export async function checkAgainstExact(input: SweepSpecInput): Promise<void> {
   const b = await collect(mps, s, [0, 1]);
   const { diff, bar, count } = compare(a, b);
   expect(count).toBeGreaterThan(50);
+  if (process.env.MPS_COMPARE_LOG) console.log(`deviation ${diff.toExponential(2)}, largest error bar ${bar.toExponential(2)}`);
   expect(diff).toBeLessThan(1e-8);
   for (const p of b.points) {
     const q = a.points.find((x) => x.betaIndex === p.betaIndex && x.timeIndex === p.timeIndex)!;
     p.values.forEach((v, k) => expect(Math.abs(v - q.values[k])).toBeLessThanOrEqual(p.errors[k] + 1e-12));
   }
   expect(bar).toBeLessThan(1e-6); // the error bars are informative, not vacuous
-  const L = s.lattice.kind === 'chain' ? s.lattice.length : 0;
+  const L = buildLattice(s.lattice).sites;
   for (let k = 0; k < 2; k++) {
     const x = a.thermo[k];
     const y = b.thermo[k];

@@ -1,6 +1,6 @@
 /**
  * The building blocks of a TEBD step: the Trotter stage lists (orders 2 and 4, merging), the
- * bond model (terms to 4×4 bond Hamiltonians, refusals) and the gates (unitarity, the
+ * bond model (terms to 4×4 bond Hamiltonians, refusals; long bonds: long-bonds.test.ts) and the gates (unitarity, the
  * auxiliary gate as conj of the physical one, invariance of |I⟩ under e^{−iτK}).
  * Tolerances: stage weights are sums of a few doubles (1e-12); gate identities 1e-13 (4×4 and
  * 16×16 matrix exponentials, complex-expm.ts).
@@ -63,11 +63,12 @@ describe('bondModel', () => {
     expect(m.localNorm).toBe(3);
   });
 
-  it('refuses terms on more than two sites or on sites that are not neighbours', () => {
-    expect(unsupportedTerm([term(1, f('Z', 0), f('Z', 2))])).toMatch(/not neighbours/);
+  it('refuses terms on more than two sites and keeps pairs that are not neighbours as long bonds', () => {
     expect(unsupportedTerm([term(1, f('Z', 0), f('Z', 1), f('Z', 2))])).toMatch(/3 sites/);
-    expect(() => bondModel([term(1, f('X', 0), f('X', 3))], 4)).toThrow(RangeError);
-    expect(unsupportedTerm([term(1, f('Y', 3), f('X', 4))])).toBeNull();
+    expect(() => bondModel([term(1, f('X', 0), f('X', 1), f('X', 3))], 4)).toThrow(RangeError);
+    expect(() => bondModel([term(1, f('X', 0), f('X', 4))], 4)).toThrow(/outside the chain/);
+    expect(unsupportedTerm([term(1, f('Y', 3), f('X', 4)), term(1, f('Z', 0), f('Z', 2))])).toBeNull();
+    expect(bondModel([term(1, f('X', 0), f('X', 3))], 4).long.map((g) => [g.left, g.right])).toEqual([[0, 3]]);
   });
 });
 

@@ -1,6 +1,6 @@
 /**
  * The mps engine's contract: series labels, edge chains (one and two sites, against the exact
- * engine), β = 0 thermodynamics in closed form, abort, checkpoint and resume, the plan's
+ * engine), β = 0 thermodynamics in closed form, abort, checkpoints and resume, the plan's
  * refusals and estimates, and the spec's `mps` settings.
  * Tolerances: one- and two-site chains need no truncation and (one or two bonds) no Trotter
  * splitting — the whole step is one exact gate — so they agree with the exact engine to 1e-12;
@@ -10,7 +10,8 @@ import { describe, expect, it } from 'vitest';
 import { SweepSpec as SweepSpecSchema } from '../../../shared-types/src/index.js';
 import type { SweepSpecInput } from '../../../shared-types/src/index.js';
 import { ExactEngine } from '../../../workers/src/engines/exact/index.js';
-import { MpsEngine, type MpsCheckpoint } from '../../../workers/src/engines/mps/index.js';
+import type { BranchCheckpoints } from '../../../workers/src/engines/engine.js';
+import { MpsEngine, decodeCheckpoint } from '../../../workers/src/engines/mps/index.js';
 import { collect, compare, spec } from './collect.js';
 
 const mps = new MpsEngine();
@@ -85,20 +86,41 @@ describe('MpsEngine', () => {
     expect(seen).toEqual([0]);
   });
 
-  it('resumes from a checkpoint with the same values as the uninterrupted run', async () => {
+  it('saves a thermal checkpoint per β and quench checkpoints between grid times, and resumes from either with the same values', async () => {
     const s = spec(base);
-    const checkpoints: MpsCheckpoint[] = [];
-    const full = await collect(mps, s, [1, 2], { checkpoint: (c) => checkpoints.push(c) });
-    expect(checkpoints.map((c) => c.betaIndex)).toEqual([1, 2]);
-    const resumed = await collect(mps, s, [1, 2], { resume: checkpoints[1], resumeFrom: { 2: 1 } });
-    expect(resumed.thermo.map((t) => t.betaIndex)).toEqual([2]);
-    expect(resumed.points.map((p) => p.timeIndex)).toEqual([1, 2]);
-    for (const p of resumed.points) {
-      const q = full.points.find((x) => x.betaIndex === 2 && x.timeIndex === p.timeIndex)!;
-      expect(p.values).toEqual(q.values);
+    const saved: Uint8Array[] = [];
+    const hook = (initial: Uint8Array | null): BranchCheckpoints => ({
+      intervalSeconds: 0, load: async () => initial, save: async (d) => { saved.push(d.slice()); },
+    });
+    const full = await collect(mps, s, [1, 2], { checkpoints: hook(null) });
+    const kinds = saved.map((d) => decodeCheckpoint(d)).map((c) => `${c.kind}:${c.betaIndex}${c.kind === 'quench' ? `:${c.progress.nextTimeIndex}` : ''}`);
+    expect(kinds).toEqual(['thermal:1', 'quench:1:1', 'quench:1:2', 'thermal:2', 'quench:2:1', 'quench:2:2']);
+    const stored = { 1: 3, 2: 2 };
+    for (const [which, resumedFrom] of [[3, 'thermal'], [5, 'quench:t=2']] as const) {
+      const resumed = await collect(mps, s, [1, 2], { checkpoints: hook(saved[which]), resumeFrom: stored });
+      expect(resumed.thermo.map((t) => t.betaIndex)).toEqual(which === 3 ? [2] : []);
+      expect(resumed.points.map((p) => p.timeIndex)).toEqual([2]);
+      for (const p of resumed.points) {
+        const q = full.points.find((x) => x.betaIndex === 2 && x.timeIndex === p.timeIndex)!;
+        expect(p.values).toEqual(q.values);
+        expect(p.errors).toEqual(q.errors);
+      }
+      const d = resumed.diagnostics[0].extra;
+      expect(d.resumedFrom).toBe(resumedFrom);
+      expect(d.imaginaryUpdatesRun).toBe(0);
+      // From the thermal checkpoint the whole quench runs again; from t index 2 only its last interval.
+      if (which === 3) expect(d.realUpdatesRun).toBe(full.diagnostics[1].extra.realUpdatesRun);
+      else expect(Number(d.realUpdatesRun)).toBeLessThan(Number(full.diagnostics[1].extra.realUpdatesRun));
+      expect(d.realUpdates).toBe(full.diagnostics[1].extra.realUpdates);
     }
-    expect(resumed.thermo[0].lnZ).toBe(full.thermo[1].lnZ);
-    await expect(collect(mps, s, [0], { resume: checkpoints[1] })).rejects.toThrow(/not one of this branch/);
+    // A checkpoint ahead of the stored points, or bytes that are not a checkpoint: run from β = 0.
+    const ahead = await collect(mps, s, [1, 2], { checkpoints: hook(saved[5]), resumeFrom: { 1: 3, 2: 1 } });
+    expect(ahead.diagnostics[0].extra.resumedFrom).toBe('start');
+    expect(ahead.diagnostics[0].extra.checkpointIgnored).toMatch(/restores 2 points of β index 2, 1 are stored/);
+    expect(Number(ahead.diagnostics[0].extra.imaginaryUpdatesRun)).toBeGreaterThan(0);
+    const junk = await collect(mps, s, [2], { checkpoints: hook(new Uint8Array(64)) });
+    expect(junk.diagnostics[0].extra.checkpointIgnored).toMatch(/format tag/);
+    expect(junk.points.map((p) => p.values)).toEqual((await collect(mps, s, [2])).points.map((p) => p.values));
   });
 
   it('reports bond dimensions, discarded weights and a Trotter estimate per run', async () => {
@@ -114,13 +136,23 @@ describe('MpsEngine', () => {
 });
 
 describe('planMps', () => {
-  it('refuses periodic chains and ladders with the offending term, and a bond cap that breaks the memory budget', () => {
+  it('plans rings and ladders through swap gates, and refuses 2D lattices, terms on three sites and a bond cap that breaks the memory budget', () => {
     const ring = mps.plan(spec({ ...base, lattice: { kind: 'chain', length: 6, boundary: 'periodic' } }));
-    expect(ring.feasible).toBe(false);
-    expect(ring.refusal?.field).toBe('h0');
-    expect(ring.refusal?.message).toMatch(/Z0 Z5.*not neighbours/);
-    const ladder = mps.plan(spec({ ...base, lattice: { kind: 'ladder', length: 3 } }));
-    expect(ladder.feasible).toBe(false);
+    expect(ring.feasible).toBe(true);
+    expect(ring.reason).toMatch(/folded ring, longer bonds through swap gates/);
+    const ladder = mps.plan(spec({ ...base, lattice: { kind: 'ladder', length: 3 }, observables: [{ kind: 'site', pauli: 'X' }] }));
+    expect(ladder.feasible).toBe(true);
+    // Each leg bond (span 2) costs a swap, the gate and a swap: more work than the 6-site open chain.
+    const open6 = mps.plan(spec({ ...base, lattice: { kind: 'chain', length: 6 }, observables: [{ kind: 'site', pauli: 'X' }] }));
+    expect(ladder.flops).toBeGreaterThan(open6.flops);
+    const square = mps.plan(spec({ ...base, lattice: { kind: 'square', size: [2, 3] }, observables: [{ kind: 'site', pauli: 'X' }] }));
+    expect(square.feasible).toBe(false);
+    expect(square.refusal?.field).toBe('lattice.kind');
+    expect(square.refusal?.message).toMatch(/square lattice/);
+    const three = mps.plan(spec({ ...base, h1: { model: 'pauli-sum', terms: [{ weight: 1, word: 'X0 Z1 X2' }] } }));
+    expect(three.feasible).toBe(false);
+    expect(three.refusal?.field).toBe('h1');
+    expect(three.refusal?.message).toMatch(/"X0 Z1 X2" acts on 3 sites/);
     const huge = mps.plan(spec({ ...base, lattice: { kind: 'chain', length: 2000 }, observables: [{ kind: 'pair', paulis: 'ZZ' }], mps: { maxBond: 2048 } }));
     expect(huge.feasible).toBe(false);
     expect(huge.refusal?.field).toBe('mps.maxBond');

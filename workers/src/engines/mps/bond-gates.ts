@@ -11,7 +11,8 @@
  *     the Loschmidt echo operator times the thermal state: close to ρ0^{1/2} for small quenches
  *     at any temperature). Physical observables are the same in every mode.
  * Index: q = 4·p_b + p_{b+1}, p = s + 2·s̃; the two-spin index of h_b is s_b + 2·s_{b+1}.
- * A chain of one site gets 4×4 site gates the same way. The auxiliary back-evolution keeps
+ * A chain of one site gets 4×4 site gates the same way; long bonds (bond-model.ts) get 16×16
+ * gates in the index of their two ends, applied between swap gates. The auxiliary back-evolution keeps
  * the operator entanglement of the doubled state low (Karrasch, Bardarson & Moore, PRL 108,
  * 227206 (2012)). Exponentials: complexExpm (tensor/complex-expm.ts).
  */
@@ -66,31 +67,57 @@ function doubledGate(spins: 1 | 2, gp: Float64Array, ga: Float64Array): Float64A
   return out;
 }
 
-/**
- * Gates for the time τ (imaginary: e^{−τh}; real: e^{−iτh} on the physical spins): one per bond
- * (16×16), or one 4×4 site gate when the model has a single site. `auxModel` (same chain) is
- * the generator of the auxiliary spins in the 'echo' mode.
- */
-export function bondGates(model: BondModel, tau: number, kind: GateKind, auxModel: BondModel = model): Float64Array[] {
-  const hs = model.site !== null ? [model.site] : model.bonds;
-  const auxHs = auxModel.site !== null ? [auxModel.site] : auxModel.bonds;
-  const spins: 1 | 2 = model.site !== null ? 1 : 2;
+/** The doubled gate of one pair (or site) Hamiltonian h for the time τ; `auxH` feeds the 'echo' mode. */
+function gateOf(spins: 1 | 2, h: Float64Array, auxH: Float64Array, tau: number, kind: GateKind): Float64Array {
   const dimS = spins === 1 ? 2 : 4;
   const id = identityMatrix(dimS);
-  return hs.map((h, b) => {
-    if (kind.kind === 'imaginary') return doubledGate(spins, expScaled(dimS, h, -tau, 0), id);
-    const gp = expScaled(dimS, h, 0, -tau);
-    let ga: Float64Array;
-    switch (kind.auxiliary) {
-      case 'transpose': ga = expScaled(dimS, transpose(dimS, h), 0, tau); break;
-      case 'plain': ga = expScaled(dimS, h, 0, tau); break;
-      case 'none': ga = id; break;
-      case 'echo': ga = expScaled(dimS, transpose(dimS, auxHs[b]), 0, tau); break;
-      default: {
-        const never: never = kind.auxiliary;
-        throw new TypeError(`bondGates: unknown auxiliary mode ${String(never)}`);
-      }
+  if (kind.kind === 'imaginary') return doubledGate(spins, expScaled(dimS, h, -tau, 0), id);
+  const gp = expScaled(dimS, h, 0, -tau);
+  let ga: Float64Array;
+  switch (kind.auxiliary) {
+    case 'transpose': ga = expScaled(dimS, transpose(dimS, h), 0, tau); break;
+    case 'plain': ga = expScaled(dimS, h, 0, tau); break;
+    case 'none': ga = id; break;
+    case 'echo': ga = expScaled(dimS, transpose(dimS, auxH), 0, tau); break;
+    default: {
+      const never: never = kind.auxiliary;
+      throw new TypeError(`bondGates: unknown auxiliary mode ${String(never)}`);
     }
-    return doubledGate(spins, gp, ga);
-  });
+  }
+  return doubledGate(spins, gp, ga);
+}
+
+/**
+ * Gates for the time τ (imaginary: e^{−τh}; real: e^{−iτh} on the physical spins): one per
+ * neighbour bond (16×16), or one 4×4 site gate when the model has a single site. `auxModel`
+ * (same chain) is the generator of the auxiliary spins in the 'echo' mode.
+ */
+export function bondGates(model: BondModel, tau: number, kind: GateKind, auxModel: BondModel = model): Float64Array[] {
+  if (model.site !== null) return [gateOf(1, model.site, auxModel.site ?? model.site, tau, kind)];
+  return model.bonds.map((h, b) => gateOf(2, h, auxModel.bonds[b], tau, kind));
+}
+
+/**
+ * Gates of the long bonds (model.long, same order; index 4·p_left + p_right). In the 'echo'
+ * mode the auxiliary generator of a long bond is auxModel's bond on the same pair (or zero).
+ * @throws RangeError in the 'echo' mode if auxModel has a long bond that the model lacks.
+ */
+export function longBondGates(model: BondModel, tau: number, kind: GateKind, auxModel: BondModel = model): Float64Array[] {
+  const aux = new Map(auxModel.long.map((g) => [`${g.left},${g.right}`, g.h]));
+  if (kind.kind === 'real' && kind.auxiliary === 'echo') {
+    const own = new Set(model.long.map((g) => `${g.left},${g.right}`));
+    for (const key of aux.keys()) {
+      if (!own.has(key)) throw new RangeError(`longBondGates: the echo mode needs the long bond ${key} of H0 in H1 as well`);
+    }
+  }
+  return model.long.map((g) => gateOf(2, g.h, aux.get(`${g.left},${g.right}`) ?? new Float64Array(32), tau, kind));
+}
+
+/** The 16×16 swap of two purified sites: (p_b, p_{b+1}) → (p_{b+1}, p_b), index 4·p_b + p_{b+1}. */
+export function swapGate(): Float64Array {
+  const g = new Float64Array(2 * 256);
+  for (let a = 0; a < 4; a++) {
+    for (let b = 0; b < 4; b++) g[2 * ((4 * a + b) * 16 + (4 * b + a))] = 1;
+  }
+  return g;
 }

@@ -17,7 +17,7 @@
  * Default bond cap: DEFAULT_MAX_BOND.
  */
 import type { SweepSpec } from '../../../../shared-types/src/index.js';
-import { gatesPerStep, type TrotterOrder } from './trotter-schedule.js';
+import { updatesFor, type TrotterOrder } from './trotter-schedule.js';
 
 /** Default bond cap χ. */
 export const DEFAULT_MAX_BOND = 128;
@@ -51,8 +51,8 @@ export interface MpsRunSettings {
 export interface SettingsContext {
   /** Λ: the largest bond norm of H0 and H1. */
   readonly localNorm: number;
-  /** Bonds of the chain (sites − 1). */
-  readonly bonds: number;
+  /** Two-site updates per application of each Trotter layer, of H0 and of H1 (bond-model.ts layerCosts). */
+  readonly layerCosts: readonly (readonly number[])[];
   /** β_max/2 (imaginary) and t_max (real). */
   readonly imaginaryTime: number;
   readonly realTime: number;
@@ -85,7 +85,8 @@ export function mpsSettings(spec: SweepSpec, ctx: SettingsContext): MpsRunSettin
     dt = Math.min(DT_MAX / scale, Math.max(DT_MIN / scale, ideal));
   }
   const steps = Math.ceil(total / dt) + ctx.intervals;
-  const updates = steps * gatesPerStep(order, ctx.bonds);
+  let updates = 0;
+  for (const costs of ctx.layerCosts) updates = Math.max(updates, updatesFor(order, steps, costs));
   let truncation = given.truncation ?? 0;
   if (given.truncation === undefined) {
     derived.push('truncation');

@@ -1,8 +1,9 @@
 /**
  * mpsSetup — everything a plan or a run of the mps engine derives from the spec: the lattice,
- * the merged terms of H0 and H1 (chain-terms.ts), their bond models (bond-model.ts), the
- * observable layout, the full list of strings measured at every time (the layout's primitives
- * first, then the terms of H0 and H1 for the energies) and the resolved settings.
+ * its chain order (chain-order.ts), the merged terms of H0 and H1 (chain-terms.ts) moved to
+ * chain positions, their bond models (bond-model.ts), the observable layout, the full list of
+ * strings measured at every time (the layout's primitives first, then the terms of H0 and H1
+ * for the energies; all on chain positions) and the resolved settings.
  * Returns a refusal (field + message) instead of throwing when the spec is outside the
  * engine's reach.
  */
@@ -11,7 +12,8 @@ import { buildLattice } from '../../lattice/build-lattice.js';
 import type { LatticeGraph } from '../../physics/types.js';
 import { betaGrid } from '../../sweep/beta-grid.js';
 import { timeGrid } from '../../sweep/time-grid.js';
-import { bondModel, unsupportedTerm, type BondModel } from './bond-model.js';
+import { bondModel, layerCosts, unsupportedTerm, type BondModel } from './bond-model.js';
+import { chainOrder, remapFactors, remapTerms, type ChainOrder } from './chain-order.js';
 import { chainTerms, wordOf, type ChainTerm } from './chain-terms.js';
 import type { FactorString } from './measure-strings.js';
 import { mpsLayout, stringTable, type MpsLayout } from './mps-layout.js';
@@ -29,12 +31,15 @@ export interface MeasuredSum {
 /** The derived setup of a spec. */
 export interface MpsSetup {
   readonly graph: LatticeGraph;
+  /** Lattice sites ↔ chain positions. */
+  readonly order: ChainOrder;
+  /** The merged terms of H0 and H1 on chain positions. */
   readonly h0Terms: readonly ChainTerm[];
   readonly h1Terms: readonly ChainTerm[];
   readonly m0: BondModel;
   readonly m1: BondModel;
   readonly layout: MpsLayout;
-  /** The layout's primitives (same indices) followed by the energy strings. */
+  /** The layout's primitives (same indices) followed by the energy strings, on chain positions. */
   readonly strings: readonly FactorString[];
   readonly energy0: MeasuredSum;
   readonly energy1: MeasuredSum;
@@ -79,24 +84,29 @@ export function mpsSetup(spec: SweepSpec): MpsSetup | MpsRefusal {
   } catch (e) {
     return { field: 'lattice', message: `the lattice cannot be built: ${(e as Error).message}` };
   }
-  let h0Terms: ChainTerm[];
-  let h1Terms: ChainTerm[];
+  const order = chainOrder(spec.lattice, graph.sites);
+  if ('field' in order) return order;
+  let latticeH0: ChainTerm[];
+  let latticeH1: ChainTerm[];
   try {
-    h0Terms = chainTerms(spec.h0, graph);
-    h1Terms = chainTerms(spec.h1, graph);
+    latticeH0 = chainTerms(spec.h0, graph);
+    latticeH1 = chainTerms(spec.h1, graph);
   } catch (e) {
     return { field: 'h0', message: `the Hamiltonians cannot be built: ${(e as Error).message}` };
   }
-  for (const [field, terms] of [['h0', h0Terms], ['h1', h1Terms]] as const) {
+  for (const [field, terms] of [['h0', latticeH0], ['h1', latticeH1]] as const) {
     const why = unsupportedTerm(terms);
-    if (why !== null) return { field, message: `${why}; the mps engine runs chains with nearest-neighbour terms in site order` };
+    if (why !== null) return { field, message: `${why}; the mps engine runs one- and two-site terms (longer bonds through swap gates)` };
   }
   let layout: MpsLayout;
   try {
-    layout = mpsLayout(spec, graph, h0Terms, h1Terms);
+    layout = mpsLayout(spec, graph, latticeH0, latticeH1);
   } catch (e) {
     return { field: 'observables', message: (e as Error).message };
   }
+  layout = { ...layout, primitives: layout.primitives.map((p) => ({ factors: remapFactors(p.factors, order) })) };
+  const h0Terms = remapTerms(latticeH0, order);
+  const h1Terms = remapTerms(latticeH1, order);
   const table = stringTable();
   for (const p of layout.primitives) table.add(p.factors);
   const energy0 = measuredSum(h0Terms, (f) => table.add(f));
@@ -113,13 +123,13 @@ export function mpsSetup(spec: SweepSpec): MpsSetup | MpsRefusal {
   }
   const settings = mpsSettings(spec, {
     localNorm: Math.max(m0.localNorm, m1.localNorm),
-    bonds: Math.max(graph.sites - 1, 0),
+    layerCosts: [layerCosts(m0), layerCosts(m1)],
     imaginaryTime: betas[betas.length - 1] / 2,
     realTime: times[times.length - 1],
     intervals,
   });
   return {
-    graph, h0Terms, h1Terms, m0, m1, layout, strings: table.list, energy0, energy1,
+    graph, order, h0Terms, h1Terms, m0, m1, layout, strings: table.list, energy0, energy1,
     h1EqualsH0: sameTerms(h0Terms, h1Terms), betas, times, settings,
   };
 }

@@ -1,17 +1,19 @@
 /**
  * planMps — cost, memory and accuracy of the mps engine for a spec, or a refusal.
  *
- * Reach: chains whose H0 and H1 terms act on one site or on two neighbouring sites in site
- * order (open chains, explicit bond lists along a line); other lattices are refused with the
- * offending term (field 'h0'/'h1'). Fan-out: one branch per β.
+ * Reach: chains, ladders and explicit bond lists lined up as a chain (chain-order.ts), with
+ * one- and two-site terms; two-site terms more than one chain step apart go through swap gates
+ * (apply-long-gate.ts). Refused: two-dimensional lattices (field 'lattice.kind') and terms on
+ * more than two sites (field 'h0'/'h1', naming the term). Fan-out: one branch per β.
  * Bond dimension used for the estimates: χ = min(maxBond, 4^⌊L/2⌋) — the cap, so the estimates
  * are upper bounds when the entanglement stays below it.
  * Memory: MPS_COPIES states (thermal, half-step check of the imaginary time, quench copy,
  * step-doubling copy) of ≤ L·4·χ²·16 bytes, plus WORKSPACE_PER_CHI2·χ² bytes of gate and SVD
  * scratch. Budget MEMORY_BUDGET_BYTES (refusal field 'memory').
  * Work (flops): updates × UPDATE_FLOPS·χ³ (θ, the truncated SVD of a 4χ × 4χ matrix and the
- * centre moves; ≈ 950·χ³ counted on a χ = 64 TEBD θ), imaginary time
- * run three times over (the state and the half-step check), measurements
+ * centre moves; ≈ 950·χ³ counted on a χ = 64 TEBD θ), the updates counted per Trotter layer
+ * (a long bond of span r costs 2(r − 1) swaps + 1 gate; trotter-schedule.ts updatesFor),
+ * imaginary time run three times over (the state and the half-step check), measurements
  * (Σ string spans + L)·64·χ³ per grid time, the energy variance ≈ L·MPO_ENTRY_PAIRS·64·χ³ per β.
  * Seconds = flops / ASSUMED_FLOPS_PER_SECOND. An upper estimate: the L = 64, t ≤ 5 bench
  * (tests/bench/mps) reaches the cap only from t ≈ 2 and took ~8× less than planned.
@@ -20,7 +22,8 @@
  * reports its measured error estimates with every point.
  */
 import type { SweepPlan, SweepSpec } from '../../../../shared-types/src/index.js';
-import { gatesPerStep } from './trotter-schedule.js';
+import { updatesFor } from './trotter-schedule.js';
+import { layerCosts } from './bond-model.js';
 import { isRefusal, mpsSetup } from './mps-setup.js';
 import { stepsFor } from './trotter-propagator.js';
 
@@ -65,7 +68,8 @@ export function planMps(spec: SweepSpec, name = 'mps'): SweepPlan {
       },
     };
   }
-  const perStep = gatesPerStep(settings.order, Math.max(L - 1, 1));
+  const costs0 = layerCosts(setup.m0);
+  const costs1 = layerCosts(setup.m1);
   let realSteps = 0;
   let prev = 0;
   for (const t of times) {
@@ -78,8 +82,10 @@ export function planMps(spec: SweepSpec, name = 'mps'): SweepPlan {
   const pointFlops = spans * 64 * chi3;
   let flops = 0;
   for (const beta of betas) {
-    const imagSteps = 3 * stepsFor(beta / 2, settings.dt);
-    flops += (imagSteps + realSteps) * perStep * UPDATE_FLOPS * chi3;
+    const imagSteps = stepsFor(beta / 2, settings.dt);
+    const updates = updatesFor(settings.order, imagSteps, costs0) + updatesFor(settings.order, 2 * imagSteps, costs0)
+      + updatesFor(settings.order, realSteps, costs1);
+    flops += updates * UPDATE_FLOPS * chi3;
     flops += times.length * pointFlops + 2 * L * MPO_ENTRY_PAIRS * 64 * chi3;
   }
   const truncationEstimate = 2 * Math.sqrt(settings.updates * settings.truncation);
@@ -91,7 +97,7 @@ export function planMps(spec: SweepSpec, name = 'mps'): SweepPlan {
     : '';
   return {
     ...base,
-    reason: `${REASON}; χ ≤ ${settings.maxBond}, order ${settings.order}, dt ${settings.dt.toPrecision(3)}, truncation ${settings.truncation.toExponential(1)}${derived}${warn}`,
+    reason: `${REASON}; sites in ${setup.order.name}${setup.m0.long.length + setup.m1.long.length > 0 ? ', longer bonds through swap gates' : ''}; χ ≤ ${settings.maxBond}, order ${settings.order}, dt ${settings.dt.toPrecision(3)}, truncation ${settings.truncation.toExponential(1)}${derived}${warn}`,
     feasible: true, refusal: null, memoryBytes, flops, seconds: flops / ASSUMED_FLOPS_PER_SECOND,
     accuracy, branches, sites: L,
   };

@@ -14,6 +14,10 @@
  * the updates and of the contraction), capped at 2.
  * The abort signal is checked, and the event loop given a turn, before every grid time and
  * every CHUNK_STEPS Trotter steps.
+ * Resuming (mps-checkpoint.ts): `afterPoint` receives, after each grid time but the last, a
+ * snapshot of the running values ({@link QuenchProgress}); given back as `resume` with the
+ * state as it was then, the loop continues at the next grid time exactly as the uninterrupted
+ * run would (same steps, same gauge: the state is not measured again before it evolves).
  */
 import { evaluateSeries } from '../../observables/evaluate-series.js';
 import type { ObservableLayout } from '../../observables/observable-layout.js';
@@ -44,8 +48,28 @@ export interface MpsQuenchInput {
   /** Trotter estimate of the thermal state's primitives. */
   readonly thermalTrotter: number;
   readonly signal?: AbortSignal;
+  /** Continue from a snapshot; `state` is the quench state saved with it. */
+  readonly resume?: QuenchProgress;
   /** Series values and errors at each grid time (buffers reused: copy them). */
   onPoint(timeIndex: number, values: Float64Array, errors: Float64Array): void;
+  /** Awaited after each grid time but the last (e.g. to save a checkpoint); `snapshot()` copies the running values. */
+  afterPoint?(timeIndex: number, snapshot: () => QuenchProgress): Promise<void>;
+}
+
+/** The running values of a quench after the points 0..nextTimeIndex−1 (see the file header). */
+export interface QuenchProgress {
+  readonly nextTimeIndex: number;
+  /** Totals of the real-time updates so far. */
+  readonly stats: EvolutionStats;
+  /** ⟨H1⟩ at t = 0 and the largest drift from it so far. */
+  readonly h1At0: number;
+  readonly h1Drift: number;
+  /** Trotter error growth per unit time (null until the first interval is done). */
+  readonly rate: number | null;
+  readonly trotter: number;
+  readonly maxImag: number;
+  readonly bondByTime: readonly number[];
+  readonly discardedByTime: readonly number[];
 }
 
 /** What the quench did. */
@@ -78,17 +102,23 @@ export async function runMpsQuench(input: MpsQuenchInput): Promise<MpsQuenchRepo
   const seriesErrors = new Float64Array(ns);
   // evaluateSeries reads only the primitive count and the series of its layout argument.
   const seriesLayout: ObservableLayout = { primitives: layout.primitives.map(() => ({ x: 0, z: 0 })), series: layout.series };
-  const stats = emptyStats();
   const factor = 1 / (1 - 2 ** -prop.order);
-  let maxImag = measurement.measure(state, values);
-  const h1At0 = sumOf(setup.energy1, values);
-  let h1Drift = 0;
-  let rate: number | null = null;
-  let trotter = input.thermalTrotter;
-  const bondByTime: number[] = [];
-  const discardedByTime: number[] = [];
-  let prev = 0;
-  for (let ti = 0; ti < times.length; ti++) {
+  const r = input.resume;
+  if (r !== undefined && !(r.nextTimeIndex >= 1 && r.nextTimeIndex < times.length)) {
+    throw new RangeError(`runMpsQuench: resume at time index ${r.nextTimeIndex} is not inside the grid (1..${times.length - 1})`);
+  }
+  const stats = r ? { ...r.stats } : emptyStats();
+  // A resumed state was measured before it was saved: measuring again would move its centre.
+  let maxImag = r ? r.maxImag : measurement.measure(state, values);
+  const h1At0 = r ? r.h1At0 : sumOf(setup.energy1, values);
+  let h1Drift = r ? r.h1Drift : 0;
+  let rate: number | null = r ? r.rate : null;
+  let trotter = r ? r.trotter : input.thermalTrotter;
+  const bondByTime: number[] = r ? [...r.bondByTime] : [];
+  const discardedByTime: number[] = r ? [...r.discardedByTime] : [];
+  const start = r ? r.nextTimeIndex : 0;
+  let prev = start > 0 ? times[start - 1] : 0;
+  for (let ti = start; ti < times.length; ti++) {
     await new Promise<void>((resolve) => setImmediate(resolve));
     if (signal?.aborted) throw abortError(signal);
     const span = times[ti] - prev;
@@ -123,6 +153,12 @@ export async function runMpsQuench(input: MpsQuenchInput): Promise<MpsQuenchRepo
     bondByTime.push(maxBond(state));
     discardedByTime.push(input.thermalDiscarded + stats.discardedSum);
     input.onPoint(ti, seriesValues, seriesErrors);
+    if (input.afterPoint !== undefined && ti < times.length - 1) {
+      await input.afterPoint(ti, () => ({
+        nextTimeIndex: ti + 1, stats: { ...stats }, h1At0, h1Drift, rate, trotter, maxImag,
+        bondByTime: [...bondByTime], discardedByTime: [...discardedByTime],
+      }));
+    }
   }
   return {
     stats, h1Drift, normDrift: -Math.expm1(-0.5 * stats.discardedSum), trotterRate: rate ?? 0,

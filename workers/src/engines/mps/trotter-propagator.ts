@@ -1,14 +1,16 @@
 /**
  * TrotterPropagator — evolves a purified MPS by whole Trotter steps of one generator: the
  * imaginary-time steps e^{−τ H0} ⊗ 1 or the real-time steps of K = H1 ⊗ 1 − 1 ⊗ H1ᵀ
- * (bond-gates.ts), in the order-2 or order-4 splitting of trotter-schedule.ts, with the
- * truncation of apply-gate.ts. Gates are built once per distinct stage time weight·τ and
- * cached (a grid of equal intervals needs a handful of gate sets).
+ * (bond-gates.ts), in the order-2 or order-4 splitting of trotter-schedule.ts over the
+ * model's layers (neighbour bonds, then the layers of long bonds applied through swap gates:
+ * bond-model.ts, apply-long-gate.ts), with the truncation of apply-gate.ts. Gates are built
+ * once per distinct stage time weight·τ and cached (a grid of equal intervals needs a handful
+ * of gate sets).
  */
 import type { Truncation } from './apply-gate.js';
-import { bondGates, type GateKind } from './bond-gates.js';
-import type { BondModel } from './bond-model.js';
-import { evolveStages, type EvolutionStats, type EvolveWorkspace } from './evolve-stages.js';
+import { bondGates, longBondGates, swapGate, type GateKind } from './bond-gates.js';
+import { layerCosts, type BondModel } from './bond-model.js';
+import { evolveStages, type EvolutionStats, type EvolveWorkspace, type LongLayout, type StageGates } from './evolve-stages.js';
 import type { PurifiedMps } from './purified-mps.js';
 import { trotterStages, type TrotterOrder } from './trotter-schedule.js';
 
@@ -21,8 +23,10 @@ export class TrotterPropagator {
   readonly #kind: GateKind;
   readonly #order: TrotterOrder;
   readonly #truncation: Truncation;
-  readonly #cache = new Map<number, readonly Float64Array[]>();
+  readonly #cache = new Map<number, StageGates>();
   readonly #auxModel: BondModel;
+  readonly #layers: number;
+  readonly #layout: LongLayout;
 
   /** `auxModel`: generator of the auxiliary spins in the 'echo' mode (bond-gates.ts). */
   constructor(model: BondModel, kind: GateKind, order: TrotterOrder, truncation: Truncation, auxModel: BondModel = model) {
@@ -31,6 +35,10 @@ export class TrotterPropagator {
     this.#kind = kind;
     this.#order = order;
     this.#truncation = truncation;
+    this.#layers = layerCosts(model).length;
+    this.#layout = { long: model.long, longLayers: model.longLayers, swap: model.long.length > 0 ? swapGate() : null };
+    // Builds (and checks) the long-bond gates of the 'echo' mode once, before any run.
+    if (model.long.length > 0) longBondGates(model, 0, kind, auxModel);
   }
 
   /** Trotter order. */
@@ -41,16 +49,18 @@ export class TrotterPropagator {
   /** Evolves `mps` by `steps` steps of length τ (imaginary time: e^{−τH} per step). */
   run(mps: PurifiedMps, steps: number, tau: number, ws: EvolveWorkspace, stats: EvolutionStats): void {
     if (steps === 0) return;
-    const layers = this.#model.sites <= 2 ? 1 : 2;
-    const stages = trotterStages(this.#order, steps, layers);
-    evolveStages(mps, stages, (w) => this.#gates(w * tau), this.#truncation, ws, stats);
+    const stages = trotterStages(this.#order, steps, this.#layers);
+    evolveStages(mps, stages, (w) => this.#gates(w * tau), this.#truncation, ws, stats, this.#layout);
   }
 
-  #gates(time: number): readonly Float64Array[] {
+  #gates(time: number): StageGates {
     let g = this.#cache.get(time);
     if (g === undefined) {
       if (this.#cache.size >= MAX_CACHED) this.#cache.clear();
-      g = bondGates(this.#model, time, this.#kind, this.#auxModel);
+      g = {
+        bonds: bondGates(this.#model, time, this.#kind, this.#auxModel),
+        long: longBondGates(this.#model, time, this.#kind, this.#auxModel),
+      };
       this.#cache.set(time, g);
     }
     return g;
