@@ -9,10 +9,10 @@ import { SweepSpec } from '../../../shared-types/src/index.js';
 import type { BranchCheckpoints, Engine } from '../engines/engine.js';
 import type { BranchInfo, JobStore } from '../store/index.js';
 import type { BranchEnqueuer, BranchJobData, BranchJobResult } from './branch-job.js';
-import { BranchAbortedError } from './errors/branch-aborted-error.js';
 import { BranchJobInvalidError } from './errors/branch-job-invalid-error.js';
 import { finalizeSweep } from './finalize-sweep.js';
 import { StoreSink } from './store-sink.js';
+import { watchBranch } from './branch-watch.js';
 import { isSampledEngine, runSampledJob } from './typical/index.js';
 
 /** Picks the engine for a spec; throws (or returns a refusal) for an impossible one. */
@@ -109,36 +109,18 @@ export async function runStoredBranch(options: RunStoredBranchOptions): Promise<
   const timeCount = record.header.times.length;
   const resumeFrom = await store.storedPointCounts(sweepId, betaIndices, timeCount);
 
-  const controller = new AbortController();
-  const stop = (reason: BranchAbortedError['reason']) => {
-    if (!controller.signal.aborted) controller.abort(new BranchAbortedError(reason));
-  };
-  const onExternal = () => {
-    const r = signal?.reason;
-    stop(r === 'handback' || r === 'orphaned' ? r : r instanceof BranchAbortedError ? r.reason : 'cancelled');
-  };
-  if (signal?.aborted) onExternal();
-  signal?.addEventListener('abort', onExternal, { once: true });
+  const watch = watchBranch(store, sweepId, workerId, pollMs, signal);
+  const { stop } = watch;
   const sink = new StoreSink(store, sweepId, branchIndex, { flushMs, onRejected: () => stop('cancelled') });
-
-  let polling = false;
-  const poll = setInterval(() => {
-    if (polling) return;
-    polling = true;
-    store.control(sweepId, workerId).then((c) => {
-      if (c.status !== 'queued' && c.status !== 'running') stop('cancelled');
-      else if (c.handback) stop('handback');
-    }, () => { /* a failed poll is retried on the next tick */ }).finally(() => { polling = false; });
-  }, pollMs);
 
   try {
     try {
       const checkpoints = storeCheckpoints(store, sweepId, branchIndex, sink, checkpointSeconds);
-      await engine.runBranch(spec.data, betaIndices, sink, { signal: controller.signal, resumeFrom, checkpoints });
+      await engine.runBranch(spec.data, betaIndices, sink, { signal: watch.signal, resumeFrom, checkpoints });
       await sink.drain();
     } catch (err) {
-      if (controller.signal.aborted) {
-        const why = (controller.signal.reason as BranchAbortedError).reason;
+      const why = watch.reason();
+      if (why !== null) {
         if (why === 'cancelled') {
           sink.discard();
           await store.branchUpdated(sweepId, branchIndex, { ...info, state: 'cancelled', finishedAt: now() });
@@ -147,20 +129,19 @@ export async function runStoredBranch(options: RunStoredBranchOptions): Promise<
         // Hand-back or orphan: keep what is computed (writes are idempotent), then give the branch up.
         await sink.drain().catch(() => undefined);
         if (why === 'handback') await store.branchUpdated(sweepId, branchIndex, { ...info, state: 'queued', error: null });
-        throw controller.signal.reason;
+        throw watch.signal.reason;
       }
       // An ordinary failure: keep what was computed before it, so the retry resumes later.
       await sink.drain().catch(() => undefined);
       throw err;
     }
-    if (controller.signal.aborted && (controller.signal.reason as BranchAbortedError).reason === 'cancelled') {
+    if (watch.reason() === 'cancelled') {
       return { outcome: 'cancelled', pointsWritten: sink.written, resumedFrom: resumeFrom, finalized: false };
     }
     const { allDone } = await store.branchFinished(sweepId, branchIndex, { ...info, state: 'done', finishedAt: now() });
     const finalized = allDone ? (await finalizeSweep(store, sweepId)) === 'succeeded' : false;
     return { outcome: 'done', pointsWritten: sink.written, resumedFrom: resumeFrom, finalized };
   } finally {
-    clearInterval(poll);
-    signal?.removeEventListener('abort', onExternal);
+    watch.dispose();
   }
 }
