@@ -1,9 +1,10 @@
 /**
  * applyLongGate — a two-site gate on chain positions (i, j), j − i ≥ 2, of a purified MPS by
- * swap gates (the standard routing of TEBD for longer-range terms; e.g. Stoudenmire & White,
- * New J. Phys. 12, 055026 (2010)): the end nearer the orthogonality centre is swapped next to
- * the other one, the gate is applied there (index 4·p_i + p_j, as for a neighbour bond), and
- * the swaps are undone, so the site order is restored after every gate:
+ * swap gates (the standard routing of TEBD for longer-range terms, as used e.g. by Stoudenmire &
+ * White, New J. Phys. 12, 055026 (2010) — reference recalled from memory): the end nearer the
+ * orthogonality centre is swapped next to the other one, the gate is applied there (index
+ * 4·p_i + p_j, as for a neighbour bond), and the swaps are undone, so the site order is
+ * restored after every gate:
  *
  *   centre nearer j: swaps on bonds j−1, …, i+1 (centre moving left), G on (i, i+1), swaps on
  *                    bonds i+1, …, j−1 (centre moving right; it ends at j);

@@ -16,7 +16,8 @@
  * imaginary time run three times over (the state and the half-step check), measurements
  * (Σ string spans + L)·64·χ³ per grid time, the energy variance ≈ L·MPO_ENTRY_PAIRS·64·χ³ per β.
  * Seconds = flops / ASSUMED_FLOPS_PER_SECOND. An upper estimate: the L = 64, t ≤ 5 bench
- * (tests/bench/mps) reaches the cap only from t ≈ 2 and took ~8× less than planned.
+ * (tests/bench/mps) reaches the cap only from t ≈ 2 and took ~4× less than planned (830–1030 s
+ * against 3100–4200 s for β = 0.5–2, on a shared machine at load 1–4).
  * Accuracy: max(tolerance, a-priori Trotter estimate (mps-settings.ts) + 2·√(updates·truncation)).
  * When that exceeds the tolerance the plan stays feasible and says so in `reason`: the run
  * reports its measured error estimates with every point.
