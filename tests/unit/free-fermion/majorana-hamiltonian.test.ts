@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import {
   isNotQuadratic, majoranaHamiltonian, sectorForm, type MajoranaHamiltonian,
 } from '../../../workers/src/engines/free-fermion/majorana-hamiltonian.js';
-import { siteTerms } from '../../../workers/src/engines/free-fermion/site-terms.js';
+import { siteTerms } from '../../../workers/src/physics/site-terms.js';
 import { buildLattice } from '../../../workers/src/lattice/build-lattice.js';
 import type { Hamiltonian, Lattice } from '../../../shared-types/src/index.js';
 import { embeddedHamiltonian, type DenseTerm } from './dense-reference.js';

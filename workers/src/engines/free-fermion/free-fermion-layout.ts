@@ -10,7 +10,7 @@ import { buildSeriesTerms } from '../../observables/build-series-terms.js';
 import type { SeriesTerms } from '../../observables/observable-layout.js';
 import type { PauliFactor } from '../../physics/pauli-word.js';
 import type { LatticeGraph } from '../../physics/types.js';
-import { factorsWord, type SiteTerm } from './site-terms.js';
+import { factorsWord, type SiteTerm } from '../../physics/site-terms.js';
 
 /** A Pauli string to measure, factors ascending by site. */
 export interface FactorPrimitive {

@@ -9,7 +9,7 @@ import type { LatticeGraph } from '../../physics/types.js';
 import {
   isNotQuadratic, majoranaHamiltonian, type MajoranaHamiltonian,
 } from './majorana-hamiltonian.js';
-import { siteTerms, type SiteTerm } from './site-terms.js';
+import { siteTerms, type SiteTerm } from '../../physics/site-terms.js';
 
 /** Largest lattice the engine accepts (the schema's own site limit). */
 export const MAX_FREE_FERMION_SITES = 4096;

@@ -7,8 +7,8 @@ export { pauliToMajorana, timesParity, monomialIndices, pfaffianSign } from './j
 export type { MajoranaMonomial } from './jordan-wigner.js';
 export { majoranaHamiltonian, isNotQuadratic, sectorForm, denseLowerTriangle } from './majorana-hamiltonian.js';
 export type { MajoranaHamiltonian, MajoranaEntry, NotQuadratic } from './majorana-hamiltonian.js';
-export { siteTerms } from './site-terms.js';
-export type { SiteTerm } from './site-terms.js';
+export { siteTerms } from '../../physics/site-terms.js';
+export type { SiteTerm } from '../../physics/site-terms.js';
 export { sectorThermo, lnTwoCosh, lnTanh } from './sector-thermo.js';
 export type { SectorSpectrum, SectorThermo, SectorWeights } from './sector-thermo.js';
 export { sectorModes, schurResidual } from './sector-modes.js';

@@ -19,7 +19,7 @@
  * Cost: O(number of terms × factors per term).
  */
 import { pauliToMajorana, timesParity, type MajoranaMonomial } from './jordan-wigner.js';
-import type { SiteTerm } from './site-terms.js';
+import type { SiteTerm } from '../../physics/site-terms.js';
 
 /** One entry A_mn (m < n) of a Majorana matrix; A_nm = −A_mn. */
 export interface MajoranaEntry {

@@ -6,12 +6,13 @@
  * - xxz:   H = J Σ⟨ij⟩ (X_i X_j + Y_i Y_j + Δ Z_i Z_j) − hz Σ_i Z_i
  * - pauli-sum: the listed words ("" is a constant).
  * Repeated strings merge in first-appearance order; a merged weight is dropped when it is 0 or
- * cancels below CANCEL_RTOL of the magnitudes merged into it.
+ * cancels below CANCEL_RTOL of the magnitudes merged into it. Used by the engines that work on
+ * lattices beyond the mask form (free-fermion, mps).
  */
-import type { Hamiltonian } from '../../../../shared-types/src/index.js';
-import { CANCEL_RTOL } from '../../physics/build-hamiltonian.js';
-import { pauliFactors, type PauliFactor } from '../../physics/pauli-word.js';
-import type { LatticeGraph } from '../../physics/types.js';
+import type { Hamiltonian } from '../../../shared-types/src/index.js';
+import { CANCEL_RTOL } from './build-hamiltonian.js';
+import { pauliFactors, type PauliFactor } from './pauli-word.js';
+import type { LatticeGraph } from './types.js';
 
 /** One weighted Pauli string with its factors sorted by site. */
 export interface SiteTerm {
@@ -49,8 +50,9 @@ export function sortedFactors(factors: readonly PauliFactor[], sites: number, wh
 export function siteTerms(h: Hamiltonian, graph: LatticeGraph): SiteTerm[] {
   const n = graph.sites;
   const acc = new Map<string, { factors: PauliFactor[]; weight: number; magnitude: number }>();
-  const add = (factors: PauliFactor[], w: number) => {
+  const add = (unsorted: PauliFactor[], w: number) => {
     if (w === 0) return;
+    const factors = unsorted.length > 1 && unsorted[0].site > unsorted[1].site ? [...unsorted].sort((p, q) => p.site - q.site) : unsorted;
     const word = factorsWord(factors);
     const t = acc.get(word);
     if (t === undefined) acc.set(word, { factors, weight: w, magnitude: Math.abs(w) });
