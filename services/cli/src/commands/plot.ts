@@ -7,13 +7,14 @@
  * file is read locally and cross-checked locally (skip with --no-check, or pass --check FILE).
  */
 import { existsSync } from 'node:fs';
-import { readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
 import type { Command } from 'commander';
 import { SweepResult } from '../../../../shared-types/src/index.js';
 import { CHECK_UNAVAILABLE, buildFigures, plotDataFromResult, usableCheck, type CheckReportBody, type Figure } from '../../../plot/index.js';
 import { figuresToSvg, svgToPngBytes } from '../../../plot/render-in-node.js';
 import { ClientError, action, clientOptions, withClient, type ClientFlags } from '../client/index.js';
 import type { RegisterCommand } from './index.js';
+import { writeFileAtomic } from '../write-atomic.js';
 
 interface PlotFlags extends ClientFlags {
   out: string;
@@ -23,17 +24,6 @@ interface PlotFlags extends ClientFlags {
 }
 
 const SWEEP_ID = /^sw_[a-z2-7]{16}$/;
-
-async function writeAtomic(path: string, data: string | Buffer): Promise<void> {
-  const tmp = `${path}.tmp-${process.pid}`;
-  try {
-    await writeFile(tmp, data);
-    await rename(tmp, path);
-  } catch (err) {
-    await rm(tmp, { force: true });
-    throw err;
-  }
-}
 
 /** The result and cross-check of a sweep on the server. */
 async function fromServer(id: string, flags: PlotFlags): Promise<{ result: SweepResult; check: CheckReportBody | null; note: string }> {
@@ -122,7 +112,7 @@ export const registerPlot: RegisterCommand = (program: Command) => {
         figures = figures.filter((f) => flags.figure!.includes(f.id));
       }
       const svg = figuresToSvg(figures, { width, heading: result.spec.label || (local ? source : `sweep ${source}`) });
-      await writeAtomic(flags.out, format === 'png' ? svgToPngBytes(svg) : svg);
+      await writeFileAtomic(flags.out, format === 'png' ? svgToPngBytes(svg) : svg);
       process.stderr.write(`wrote ${flags.out}: ${figures.length} figure${figures.length === 1 ? '' : 's'} (${figures.map((f) => f.id).join(', ')})` +
         `${check ? '' : `; ${note || CHECK_UNAVAILABLE}`}\n`);
     }));
