@@ -4,6 +4,7 @@
  * independent small-matrix reference). Vectors are complex interleaved (re, im) like the engine's.
  */
 import { create, all } from 'mathjs';
+import { symmetricEigen } from '../../support/reference/jacobi-eigen.js';
 
 const math = create(all);
 
@@ -113,4 +114,19 @@ export function distance(a: Float64Array, b: Float64Array): number {
   let s = 0;
   for (let k = 0; k < a.length; k++) s += (a[k] - b[k]) ** 2;
   return Math.sqrt(s);
+}
+
+/**
+ * Eigenvalues of a Hermitian H = A + iB, ascending: cyclic Jacobi (tests/support/reference/
+ * jacobi-eigen.ts) on the real embedding [[A, −B], [B, A]], whose spectrum is H's twice over.
+ */
+export function hermitianEigenvalues(h: DenseC): number[] {
+  const n = h.n;
+  const rows = Array.from({ length: 2 * n }, (_, i) => Array.from({ length: 2 * n }, (_, j) => {
+    const r = i % n, c = j % n;
+    const re = h.data[2 * (r * n + c)], im = h.data[2 * (r * n + c) + 1];
+    if ((i < n) === (j < n)) return re;
+    return i < n ? -im : im;
+  }));
+  return symmetricEigen(rows).values.filter((_, k) => k % 2 === 0);
 }

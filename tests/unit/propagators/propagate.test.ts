@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { propagateImaginaryTime } from '../../../workers/src/propagators/propagate-imaginary-time.js';
 import { propagateRealTime } from '../../../workers/src/propagators/propagate-real-time.js';
 import {
-  denseApply, distance, expmTimes, norm, randomHermitian, randomVector, rowSumBound,
+  denseApply, distance, expmTimes, hermitianEigenvalues, norm, randomHermitian, randomVector, rowSumBound,
 } from './dense-complex.js';
 
 const n = 8;
@@ -105,6 +105,29 @@ describe('propagateImaginaryTime', () => {
     const refNorm = norm(ref);
     for (let k = 0; k < ref.length; k++) ref[k] /= refNorm;
     expect(distance(psi, ref)).toBeLessThan(1e-11);
+  });
+
+  it('takes one long step on a tight interval with a ground bound, within κ·errorBound of expm and with fewer matvecs', () => {
+    // Tight interval from the reference eigenvalues (cyclic Jacobi on the real embedding of H,
+    // tests/support/reference/jacobi-eigen.ts); any g ≥ E0 is a valid ground bound: E0 + 0.01.
+    const eig = hermitianEigenvalues(h);
+    const tight = { lo: eig[0] - 0.05, hi: eig[eig.length - 1] + 0.05 };
+    for (const delta of [0.7, 6]) {
+      const psi0 = randomVector(n, 23);
+      const psi = psi0.slice();
+      const rep = propagateImaginaryTime(apply, tight, delta, psi, work(), { tolerance: 1e-12, groundBound: eig[0] + 0.01 });
+      const plain = propagateImaginaryTime(apply, tight, delta, psi0.slice(), work(), { tolerance: 1e-12 });
+      expect(rep.steps).toBe(1);
+      expect(rep.matvecs).toBeLessThan(plain.matvecs);
+      expect(rep.errorBound).toBeLessThanOrEqual(1e-12 * (1 + 1e-9));
+      const ref = expmTimes(h, -delta, 0, psi0);
+      const refNorm = norm(ref);
+      for (let k = 0; k < ref.length; k++) ref[k] /= refNorm;
+      const kappa = norm(psi0) / (refNorm * Math.exp(delta * tight.lo));
+      expect(distance(psi, ref)).toBeLessThanOrEqual(2 * kappa * rep.errorBound + 1e-12);
+      expect(Math.abs(rep.lnNormGrowth - Math.log(refNorm / norm(psi0)))).toBeLessThanOrEqual(2 * kappa * rep.errorBound + 1e-12);
+    }
+    expect(() => propagateImaginaryTime(apply, tight, 1, randomVector(n, 3), work(), { tolerance: 1e-8, groundBound: tight.hi + 1 })).toThrow(/groundBound/);
   });
 
   it('only normalises at Δ = 0 and rejects the zero vector and a negative Δ', () => {

@@ -13,3 +13,5 @@ export type { RealTimeOptions } from './propagate-real-time.js';
 export { propagateImaginaryTime, MAX_IMAGINARY_TIME_TAU } from './propagate-imaginary-time.js';
 export type { ImaginaryTimeOptions } from './propagate-imaginary-time.js';
 export type { AffineApply, SpectralInterval, PropagationReport, ImaginaryPropagationReport } from './types.js';
+export { lanczosInterval, DEFAULT_LANCZOS_STEPS, DEFAULT_MARGIN } from './lanczos-interval.js';
+export type { LanczosIntervalOptions, LanczosIntervalReport } from './lanczos-interval.js';

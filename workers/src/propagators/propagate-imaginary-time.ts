@@ -15,8 +15,13 @@
  *   κ = ‖ψ_in‖ / ‖e^{−Δ(Op−E0)}ψ_in‖ ≥ 1   (the step's own conditioning on ψ_in).
  * Chained calls compose: the sums add and κ is that of the whole chain. For the thermofield
  * double started at |I⟩ (Op = H ⊗ 1), κ² = 2^N / Σ_n e^{−2Δ(E_n−E0)} ≤ 2^N, i.e. κ ≤ 2^{N/2}.
- * The requested tolerance is split as ε_j = tolerance/(n·e^{2τ_j}), so errorBound ≤ tolerance.
- * maxStepTau caps the factor e^{2τ_j} that also multiplies the (unbounded here) rounding error.
+ * With an upper bound g ≥ E0 on the lowest eigenvalue (options.groundBound, e.g. a Rayleigh
+ * quotient or a Lanczos Ritz value; default hi), the factor e^{Δ_j(E0−lo)} is bounded by
+ * A_j = e^{Δ_j(g−lo)} instead of e^{2τ_j} (the case g = hi), and errorBound = Σ_j ε_j·A_j.
+ * The requested tolerance is split as ε_j = tolerance/(n·A_j), so errorBound ≤ tolerance.
+ * Sub-steps keep Δ_j(g − lo) ≤ 2·maxStepTau: that caps A_j, which also multiplies the (unbounded
+ * here) rounding error. With g = hi this is τ_j ≤ maxStepTau; when lo lies just below E0 (a
+ * tight interval, g − lo ≪ 2a) one long step of order ≈ √(2τ·ln(1/ε)) replaces many short ones.
  *
  * Memory: ψ + the 2 work vectors. Cost: Σ K_j Op applications + one norm per sub-step.
  */
@@ -32,8 +37,10 @@ export const MAX_IMAGINARY_TIME_TAU = 2;
 export interface ImaginaryTimeOptions {
   /** Bound asked of errorBound = Σ_j ε_j e^{2τ_j} (> 0); see the file header for its meaning. */
   tolerance: number;
-  /** Largest τ per sub-step. @defaultValue MAX_IMAGINARY_TIME_TAU */
+  /** Largest τ per sub-step, as Δ_j·(groundBound − lo)/2. @defaultValue MAX_IMAGINARY_TIME_TAU */
   maxStepTau?: number;
+  /** An upper bound on Op's lowest eigenvalue, in [lo, hi] (see the file header). @defaultValue interval.hi */
+  groundBound?: number;
 }
 
 /**
@@ -50,10 +57,13 @@ export function propagateImaginaryTime(
   work: readonly Float64Array[],
   options: ImaginaryTimeOptions,
 ): ImaginaryPropagationReport {
-  const { tolerance, maxStepTau = MAX_IMAGINARY_TIME_TAU } = options;
+  const { tolerance, maxStepTau = MAX_IMAGINARY_TIME_TAU, groundBound = interval.hi } = options;
   checkPropagationArgs(interval, delta, 'delta', psi, work, tolerance);
   if (delta < 0) throw new RangeError(`delta must be ≥ 0; got ${delta}`);
   if (!(maxStepTau > 0)) throw new RangeError(`maxStepTau must be positive; got ${maxStepTau}`);
+  if (!(groundBound >= interval.lo && groundBound <= interval.hi)) {
+    throw new RangeError(`groundBound must lie in the interval [${interval.lo}, ${interval.hi}]; got ${groundBound}`);
+  }
   const report: ImaginaryPropagationReport = { order: 0, errorBound: 0, matvecs: 0, steps: 0, lnNormGrowth: 0 };
   const norm0 = normalise(psi);
   if (norm0 === 0) throw new RangeError('psi must not be the zero vector');
@@ -67,9 +77,11 @@ export function propagateImaginaryTime(
     return report;
   }
   const tauTotal = delta * halfWidth;
-  const steps = Math.max(1, Math.ceil(tauTotal / maxStepTau));
+  // g = hi keeps the plain form (τ_j ≤ maxStepTau, A_j = e^{2τ_j}) bit for bit.
+  const plain = groundBound === hi;
+  const steps = Math.max(1, Math.ceil(plain ? tauTotal / maxStepTau : (delta * (groundBound - lo)) / (2 * maxStepTau)));
   const tau = tauTotal / steps;
-  const amplification = Math.exp(2 * tau);
+  const amplification = Math.exp(plain ? 2 * tau : (delta / steps) * (groundBound - lo));
   const series = chebyshevExpSeries('imaginary', tau, tolerance / (steps * amplification));
   const stepDelta = delta / steps;
   for (let j = 0; j < steps; j++) {
