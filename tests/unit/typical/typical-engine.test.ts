@@ -111,12 +111,16 @@ describe('TypicalEngine', () => {
         expect(estimateTypicalBeta(layout, merged, b, { errorTarget: 1 })).toEqual(estimateTypicalBeta(layout, whole, b, { errorTarget: 1 }));
       }
       // A single-β branch reproduces the same per-sample numbers as a two-β branch (each sample
-      // walks imaginary time from β = 0; truncation differs below 1e-10 only).
+      // walks imaginary time from β = 0; the propagators truncate differently, so the two agree
+      // within the sum of their own error estimates: ln‖ψ‖² moves by ≤ 2δ for a relative state
+      // error δ, and an expectation of a Pauli string (norm 1) by ≤ 2δ + δ²).
       const single = await runTypicalSamples(QUENCH, [1], { start: 0, count: 3 });
+      const t5 = Math.floor(5 / whole.primitives);
       for (const r of single.records) {
         const w = whole.records.find((x) => x.betaIndex === 1 && x.sample === r.sample)!;
-        expect(Math.abs(r.lnWeight - w.lnWeight)).toBeLessThan(1e-10);
-        expect(Math.abs(r.primitives[5] - w.primitives[5])).toBeLessThan(1e-10);
+        expect(Math.abs(r.lnWeight - w.lnWeight)).toBeLessThan(2.1 * (r.thermalError + w.thermalError));
+        expect(r.thermalError + w.thermalError).toBeLessThan(1e-7);
+        expect(Math.abs(r.primitives[5] - w.primitives[5])).toBeLessThan(2.1 * (r.stateErrors[t5] + w.stateErrors[t5]));
       }
     });
 

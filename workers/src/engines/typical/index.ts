@@ -11,7 +11,9 @@ export {
 } from './plan-typical.js';
 export type { TypicalPlanDetails, TypicalSchedule } from './plan-typical.js';
 export { runTypicalSamples, TypicalSampleRunner, betaOrder } from './run-typical-samples.js';
-export type { TypicalSamplesOptions } from './run-typical-samples.js';
+export type { TypicalSamplesOptions, TypicalRunnerOptions } from './run-typical-samples.js';
+export { narrowIntervals, boundIntervals, IntervalMissError } from './typical-intervals.js';
+export type { NarrowedIntervals } from './typical-intervals.js';
 export { mergeTypicalSamples } from './merge-typical-samples.js';
 export { estimateTypicalBeta, recordsAt } from './estimate-typical.js';
 export type { TypicalBetaEstimate, EstimateOptions } from './estimate-typical.js';

@@ -9,6 +9,10 @@
  *   sub-steps instead), every primitive measured at every grid time (measurePauliBatch), and ⟨H1⟩
  *   at the first grid time and at the end of every block (per-sample drift check: exactly
  *   conserved by the unitary evolution).
+ * Interval checks (the intervals may be Lanczos estimates, typical-intervals.ts): every output's
+ * |‖ψ̂(t)‖ − 1| must stay within twice its truncation-plus-rounding bound (+ NORM_SLACK), and
+ * ⟨H0⟩ inside the H0 interval; otherwise IntervalMissError (the runner redoes the sample on
+ * the rigorous bounds). With a correct interval neither check can fail.
  * A copy of ψ(β) is kept while more β follow. The abort signal is checked, and the event loop
  * given a turn, before every block (so at least every MAX_BLOCK_TIMES grid times, not at every
  * grid time: a block is one synchronous recurrence).
@@ -31,6 +35,10 @@ import { ROUNDING_PER_MATVEC } from './typical-budget.js';
 import type { TypicalBudget } from './typical-budget.js';
 import type { TypicalSampleRecord } from './typical-samples.js';
 import type { TypicalSetup } from './typical-setup.js';
+import { IntervalMissError } from './typical-intervals.js';
+
+/** Absolute slack of the norm check (rounding of the norm itself and of ψ̂'s normalisation). */
+export const NORM_SLACK = 1e-12;
 
 /** The 2^N work vectors of one sample. */
 export interface SampleBuffers {
@@ -44,13 +52,15 @@ export interface SampleBuffers {
 
 /**
  * Buffers for vectors of `dim` entries: `blockVectors` block outputs, and the thermal copy when
- * `keepThermal` (branches of several β).
+ * `keepThermal` (branches of several β); `work` reuses two vectors already allocated.
  */
-export function allocateSampleBuffers(dim: number, keepThermal: boolean, blockVectors: number): SampleBuffers {
+export function allocateSampleBuffers(
+  dim: number, keepThermal: boolean, blockVectors: number, work?: readonly [Float64Array, Float64Array],
+): SampleBuffers {
   const length = 2 * dim;
   return {
     state: new Float64Array(length),
-    work: [new Float64Array(length), new Float64Array(length)],
+    work: work ?? [new Float64Array(length), new Float64Array(length)],
     block: Array.from({ length: blockVectors }, () => new Float64Array(length)),
     thermal: keepThermal ? new Float64Array(length) : null,
   };
@@ -119,7 +129,7 @@ export async function runSample(input: SampleInput): Promise<TypicalSampleRecord
     const delta = (beta - currentBeta) / 2;
     if (delta > 0) {
       const tolerance = budget.imaginaryTolerance * (delta / (betaMax / 2));
-      const rep = propagateImaginaryTime(applyH0, setup.h0Interval, delta, state, work, { tolerance });
+      const rep = propagateImaginaryTime(applyH0, setup.h0Interval, delta, state, work, { tolerance, groundBound: setup.h0Ground });
       lnWeight += 2 * rep.lnNormGrowth;
       imagBound += rep.errorBound;
       imagMatvecs += rep.matvecs;
@@ -137,6 +147,9 @@ export async function runSample(input: SampleInput): Promise<TypicalSampleRecord
     dotc(state, work[0], pair);
     const mean = pair[0] / n2;
     const energyVariance = Math.max(0, norm2sq(work[0]) / n2 - mean * mean);
+    if (!(energy >= setup.h0Interval.lo && energy <= setup.h0Interval.hi)) {
+      throw new IntervalMissError(`⟨H0⟩ = ${energy} at β = ${beta} lies outside H0's interval [${setup.h0Interval.lo}, ${setup.h0Interval.hi}]`);
+    }
 
     const last = k === order.length - 1;
     if (thermal !== null && !last) thermal.set(state);
@@ -177,7 +190,11 @@ export async function runSample(input: SampleInput): Promise<TypicalSampleRecord
         const own = rep.errorBounds[j] + ROUNDING_PER_MATVEC * rep.orders[j];
         stateErrors[ti] = thermalError + (1 + thermalError) * (realBound + own);
         const m2 = norm2sq(v);
-        normDrift = Math.max(normDrift, Math.abs(Math.sqrt(m2) - 1));
+        const drift = Math.abs(Math.sqrt(m2) - 1);
+        if (!(drift <= 2 * (realBound + own) + NORM_SLACK)) {
+          throw new IntervalMissError(`‖ψ(t)‖ − 1 = ${drift} at t = ${times[ti]} exceeds the truncation bound ${realBound + own}: H1's interval [${setup.h1Interval.lo}, ${setup.h1Interval.hi}] misses part of its spectrum`);
+        }
+        normDrift = Math.max(normDrift, drift);
         if (ti === 0) h1AtZero = energyH1(v, m2);
         measurePauliBatch(batch, v, values, work[1]);
         const row = ti * np;

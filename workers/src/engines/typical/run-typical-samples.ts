@@ -19,6 +19,8 @@ import type { TypicalBudget } from './typical-budget.js';
 import type { SampleRange, TypicalSampleRecord, TypicalSamples } from './typical-samples.js';
 import { typicalSetup } from './typical-setup.js';
 import type { TypicalSetup } from './typical-setup.js';
+import { boundIntervals, IntervalMissError, narrowIntervals } from './typical-intervals.js';
+import type { NarrowedIntervals } from './typical-intervals.js';
 
 /** Options of {@link runTypicalSamples}. */
 export interface TypicalSamplesOptions {
@@ -43,34 +45,88 @@ export function betaOrder(betas: readonly number[], betaIndices: readonly number
   return [...new Set(betaIndices)].sort((p, q) => betas[p] - betas[q]);
 }
 
-/** A runner that keeps its setup, budget and buffers across calls (the engine's adaptive rounds). */
+/** Options of {@link TypicalSampleRunner}. */
+export interface TypicalRunnerOptions {
+  /**
+   * Narrow the setup's Chebyshev intervals to Lanczos estimates (typical-intervals.ts); false
+   * runs on the setup's intervals as given (a sample that reports an IntervalMissError still
+   * falls back to the bounds when those intervals are narrower). @defaultValue true
+   */
+  readonly narrow?: boolean;
+}
+
+/**
+ * A runner that keeps its setup, budget and buffers across calls (the engine's adaptive rounds).
+ * It runs on narrowed intervals and redoes a sample on the rigorous bounds when the sample
+ * reports an IntervalMissError (same buffers; blocks no wider than the narrowed schedule's).
+ */
 export class TypicalSampleRunner {
+  /** The setup the samples run on (narrowed intervals unless options.narrow is false). */
   readonly setup: TypicalSetup;
   readonly order: readonly number[];
+  /** The Lanczos reports, when the intervals were narrowed. */
+  readonly intervals: NarrowedIntervals | null;
   readonly #budget: TypicalBudget;
   readonly #buffers: SampleBuffers;
   readonly #blocks: readonly QuenchBlock[];
   readonly #blockTolerance: number;
+  #fallback: { setup: TypicalSetup; blocks: readonly QuenchBlock[] } | null = null;
+  #fallbacks = 0;
 
   /** @throws RangeError on a bad β index or an impossible spec. */
-  constructor(spec: SweepSpec, betaIndices: readonly number[], setup?: TypicalSetup) {
-    this.setup = setup ?? typicalSetup(spec);
-    this.order = betaOrder(this.setup.betas, betaIndices);
-    this.#budget = typicalBudget(this.setup.layout, spec.tolerance, this.setup.sites, this.setup.h0NormBound,
-      this.order.map((b) => this.setup.betas[b]));
-    const { h1Op, times, tables } = this.setup;
-    this.#blockTolerance = this.#budget.realTolerance / quenchCalls(times);
-    const groups = h1Op.groups.length;
-    const terms = groups === 0 ? 0 : h1Op.groups.reduce((a, g) => a + g.zMasks.length, 0) / groups;
-    this.#blocks = quenchBlocks(times, (this.setup.h1Interval.hi - this.setup.h1Interval.lo) / 2,
-      applyPasses(h1Op.diagonal !== null, groups, terms, tables), this.#blockTolerance, maxBlockTimes(this.setup.dim));
+  constructor(spec: SweepSpec, betaIndices: readonly number[], setup?: TypicalSetup, options: TypicalRunnerOptions = {}) {
+    const { narrow = true } = options;
+    const base = setup ?? typicalSetup(spec);
+    this.order = betaOrder(base.betas, betaIndices);
+    this.#budget = typicalBudget(base.layout, spec.tolerance, base.sites, base.h0NormBound,
+      this.order.map((b) => base.betas[b]));
+    this.#blockTolerance = this.#budget.realTolerance / quenchCalls(base.times);
+    const length = 2 * base.dim;
+    const work: [Float64Array, Float64Array] = [new Float64Array(length), new Float64Array(length)];
+    if (narrow && this.order.length > 0) {
+      const narrowed = narrowIntervals(base, work[0], work[1]);
+      this.setup = narrowed.setup;
+      this.intervals = narrowed.reports;
+    } else {
+      this.setup = base;
+      this.intervals = null;
+    }
+    this.#blocks = this.#schedule(this.setup, maxBlockTimes(base.dim));
     const widest = this.#blocks.reduce((a, b) => Math.max(a, b.count), 1);
-    this.#buffers = allocateSampleBuffers(this.setup.dim, this.order.length > 1, widest);
+    this.#buffers = allocateSampleBuffers(base.dim, this.order.length > 1, widest, work);
   }
 
   /** The quench blocks every sample uses (for diagnostics and benchmarks). */
   get blocks(): readonly QuenchBlock[] {
     return this.#blocks;
+  }
+
+  /** Samples this runner redid on the rigorous bounds after an IntervalMissError. */
+  get fallbacks(): number {
+    return this.#fallbacks;
+  }
+
+  #schedule(setup: TypicalSetup, maxBlock: number): QuenchBlock[] {
+    const { h1Op, times, tables } = setup;
+    const groups = h1Op.groups.length;
+    const terms = groups === 0 ? 0 : h1Op.groups.reduce((a, g) => a + g.zMasks.length, 0) / groups;
+    return quenchBlocks(times, (setup.h1Interval.hi - setup.h1Interval.lo) / 2,
+      applyPasses(h1Op.diagonal !== null, groups, terms, tables), this.#blockTolerance, maxBlock);
+  }
+
+  async #sample(k: number, signal: AbortSignal | undefined): Promise<TypicalSampleRecord[]> {
+    const common = { budget: this.#budget, order: this.order, sample: k, buffers: this.#buffers, blockTolerance: this.#blockTolerance, signal };
+    try {
+      return await runSample({ ...common, setup: this.setup, blocks: this.#blocks });
+    } catch (e) {
+      if (!(e instanceof IntervalMissError) || onBounds(this.setup)) throw e;
+      this.#fallbacks += 1;
+      if (this.#fallback === null) {
+        const setup = boundIntervals(this.setup);
+        this.#fallback = { setup, blocks: this.#schedule(setup, this.#buffers.block.length) };
+      }
+      return runSample({ ...common, ...this.#fallback });
+    }
   }
 
   /** Runs samples [range.start, range.start + range.count); records sorted by (β index, sample). */
@@ -82,10 +138,7 @@ export class TypicalSampleRunner {
     }
     const records: TypicalSampleRecord[] = [];
     for (let k = start; k < start + count && this.order.length > 0; k++) {
-      const recs = await runSample({
-        setup: this.setup, budget: this.#budget, order: this.order, sample: k, buffers: this.#buffers,
-        blocks: this.#blocks, blockTolerance: this.#blockTolerance, signal: options.signal,
-      });
+      const recs = await this.#sample(k, options.signal);
       options.onSample?.(recs);
       records.push(...recs);
     }
@@ -97,6 +150,12 @@ export class TypicalSampleRunner {
       records,
     };
   }
+}
+
+/** Whether a setup already runs on its rigorous bounds (nothing to fall back to). */
+function onBounds(s: TypicalSetup): boolean {
+  const same = (a: { lo: number; hi: number }, b: { lo: number; hi: number }) => a.lo === b.lo && a.hi === b.hi;
+  return same(s.h0Interval, s.h0Bound) && same(s.h1Interval, s.h1Bound) && s.h0Ground === s.h0Bound.hi;
 }
 
 /**

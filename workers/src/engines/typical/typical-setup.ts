@@ -3,6 +3,9 @@
  *
  *   imaginary time: H0 on [shift0 − a0, shift0 + a0]
  *   quench:         H1 on [shift1 − a1, shift1 + a1]      (a = Σ|w| over non-identity terms)
+ * These rigorous bounds are also kept as h0Bound/h1Bound; a runner narrows h0Interval/h1Interval
+ * to Lanczos estimates (typical-intervals.ts) and falls back to the bounds when a sample
+ * detects a miss.
  * Only the physical generator H1 appears: the auxiliary half −1 ⊗ H1ᵀ of the doubled generator
  * rotates the auxiliary basis, which the sampled trace does not see (typical-engine.ts header).
  *
@@ -31,8 +34,16 @@ export interface TypicalSetup extends TypicalLayout {
   readonly dim: number;
   readonly h0Op: CompiledOperator;
   readonly h1Op: CompiledOperator;
+  /** Chebyshev interval of H0 (the bound, or a narrower estimate: typical-intervals.ts). */
   readonly h0Interval: SpectralInterval;
+  /** Chebyshev interval of H1 (as h0Interval). */
   readonly h1Interval: SpectralInterval;
+  /** Rigorous spectral bound of H0: shift ± Σ|w|. */
+  readonly h0Bound: SpectralInterval;
+  /** Rigorous spectral bound of H1. */
+  readonly h1Bound: SpectralInterval;
+  /** Upper bound on H0's lowest eigenvalue, in h0Interval (h0Interval.hi when nothing better is known). */
+  readonly h0Ground: number;
   /** The primitives some series uses, grouped by flip mask for one-pass measurement. */
   readonly batch: PauliBatch;
   /** Layout index of each string of `batch` (unused primitives are not measured; their value stays 0). */
@@ -59,13 +70,18 @@ export function typicalSetup(spec: SweepSpec): TypicalSetup {
   const h0Op = compileOperator(base.h0, { tables });
   const h1Op = compileOperator(base.h1, { tables });
   const measured = measuredPrimitives(base.layout);
+  const h0Bound = { lo: h0Op.shift - h0Op.normBound, hi: h0Op.shift + h0Op.normBound };
+  const h1Bound = { lo: h1Op.shift - h1Op.normBound, hi: h1Op.shift + h1Op.normBound };
   return {
     ...base,
     dim: h0Op.dim,
     h0Op,
     h1Op,
-    h0Interval: { lo: h0Op.shift - h0Op.normBound, hi: h0Op.shift + h0Op.normBound },
-    h1Interval: { lo: h1Op.shift - h1Op.normBound, hi: h1Op.shift + h1Op.normBound },
+    h0Interval: h0Bound,
+    h1Interval: h1Bound,
+    h0Bound,
+    h1Bound,
+    h0Ground: h0Bound.hi,
     batch: pauliBatch(Array.from(measured, (p) => base.layout.primitives[p]), h0Op.dim),
     measured,
     tables,
