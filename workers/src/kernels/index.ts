@@ -7,6 +7,7 @@ export type { CompiledOperator, CompiledGroup, CompileOptions } from './compile-
 export { applyOperatorAffine } from './apply-operator.js';
 export { applyDoubledAffine, MAX_DOUBLED_SITES } from './apply-doubled.js';
 export { pauliExpectation } from './pauli-expectation.js';
+export { axpyPairMulti, PAIR_CHUNK } from './axpy-pair-multi.js';
 export { norm2sq, dotc, axpyComplex, scaleReal, scaleComplex, copyInto } from './complex-vector.js';
 export { transposeSum } from './transpose-sum.js';
 export { scaleSum } from './scale-sum.js';

@@ -15,7 +15,7 @@
  * the gain when an application costs many passes (one per flip group) and the steps are short.
  * Memory: ψ (overwritten: it holds T_k during the recurrence), one work vector, the B outputs.
  */
-import { axpyComplex, scaleComplex } from '../../kernels/index.js';
+import { axpyPairMulti, scaleComplex } from '../../kernels/index.js';
 import { chebyshevExpSeries } from '../../propagators/index.js';
 import type { AffineApply, ChebyshevSeries, SpectralInterval } from '../../propagators/index.js';
 
@@ -23,7 +23,7 @@ import type { AffineApply, ChebyshevSeries, SpectralInterval } from '../../propa
 export interface MultiTimeReport {
   /** Applications of Op (K_max). */
   matvecs: number;
-  /** Complex axpy passes (Σ_j (K_j + 1)). */
+  /** Complex axpy terms (Σ_j (K_j + 1); two per output per pass of axpyPairMulti). */
   axpys: number;
   /** Truncation bound ε_j of each output (relative 2-norm). */
   errorBounds: number[];
@@ -78,36 +78,40 @@ export function propagateToTimes(
     report.orders[j] = s.order;
     kMax = Math.max(kMax, s.order);
   });
-  // k = 0: outs[j] = c_0·ψ.
-  for (let j = 0; j < B; j++) {
-    const c = series[j].coefficients;
-    const out = outs[j];
-    const re = c[0], im = c[1];
-    for (let i = 0, n = psi.length; i + 1 < n; i += 2) {
-      const xr = psi[i], xi = psi[i + 1];
-      out[i] = re * xr - im * xi;
-      out[i + 1] = re * xi + im * xr;
+  // Two orders per pass over the outputs (axpyPairMulti): (0, 1) overwrites, then (2, 3), (4, 5), …
+  const coef = new Float64Array(4 * B);
+  const active: Float64Array[] = new Array<Float64Array>(B);
+  const pass = (ka: number, x0: Float64Array, kb: number, x1: Float64Array | null, overwrite: boolean): void => {
+    let m = 0;
+    for (let j = 0; j < B; j++) {
+      const { order, coefficients: c } = series[j];
+      if (!overwrite && order < ka) continue;
+      coef[4 * m] = c[2 * ka];
+      coef[4 * m + 1] = c[2 * ka + 1];
+      const second = x1 !== null && kb <= order;
+      coef[4 * m + 2] = second ? c[2 * kb] : 0;
+      coef[4 * m + 3] = second ? c[2 * kb + 1] : 0;
+      active[m++] = outs[j];
+      report.axpys += second ? 2 : 1;
     }
-    report.axpys += 1;
-  }
-  if (kMax >= 1) {
+    if (m > 0) axpyPairMulti(active, m, coef, x0, x1, overwrite);
+  };
+  if (kMax === 0) {
+    pass(0, psi, -1, null, true);
+  } else {
     const inv = 1 / halfWidth;
-    let prev = psi;
-    let cur = work;
     apply(psi, work, inv, -centre * inv, 0); // T_1ψ
     report.matvecs += 1;
-    for (let k = 1; ; k++) {
-      for (let j = 0; j < B; j++) {
-        if (series[j].order < k) continue;
-        const c = series[j].coefficients;
-        axpyComplex(outs[j], c[2 * k], c[2 * k + 1], cur);
-        report.axpys += 1;
-      }
-      if (k === kMax) break;
-      apply(cur, prev, 2 * inv, -2 * centre * inv, -1); // prev ← T_{k+1}ψ
+    pass(0, psi, 1, work, true);
+    let prev = psi;
+    let cur = work;
+    for (let k = 2; k <= kMax; k++) {
+      apply(cur, prev, 2 * inv, -2 * centre * inv, -1); // prev ← T_kψ
       report.matvecs += 1;
       const t = prev; prev = cur; cur = t;
+      if ((k & 1) === 1) pass(k - 1, prev, k, cur, false);
     }
+    if ((kMax & 1) === 0) pass(kMax, cur, -1, null, false);
   }
   for (let j = 0; j < B; j++) {
     const s = offsets[j];
