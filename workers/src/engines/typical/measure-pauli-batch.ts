@@ -157,6 +157,19 @@ function diagonalPass(zs: Int32Array, state: Float64Array, dim: number, acc: Flo
 function flipPass(x: number, zs: Int32Array, state: Float64Array, dim: number, accRe: Float64Array, accIm: Float64Array): void {
   const m = zs.length;
   const b = x & -x;
+  if (m === 1 && zs[0] === 0) {
+    // A pure flip string (z = 0, phase 1): only the real part is used, and there is no sign.
+    let s0 = 0, s1 = 0;
+    for (let hi = 0; hi < dim; hi += 2 * b) {
+      for (let s = hi, end = hi + b; s < end; s++) {
+        const q = 2 * (s ^ x), k = 2 * s;
+        s0 += state[q] * state[k];
+        s1 += state[q + 1] * state[k + 1];
+      }
+    }
+    accRe[0] += s0 + s1;
+    return;
+  }
   if (m === 1) {
     const z = zs[0];
     let sr = 0, si = 0;
