@@ -35,6 +35,8 @@ async function waitReady(port: number, timeoutMs = 10_000): Promise<void> {
   const started = Date.now();
   for (;;) {
     const client = new Redis({ port, host: '127.0.0.1', lazyConnect: true, maxRetriesPerRequest: 0, retryStrategy: () => null });
+    // Refused connections are expected while the server starts; connect() reports them.
+    client.on('error', () => undefined);
     try {
       await client.connect();
       const pong = await client.ping();
