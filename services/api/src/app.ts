@@ -47,6 +47,7 @@ export async function buildApp(ctx: ApiContext, hooks: BuildAppHooks = {}): Prom
     errorHandler(apiError('BSW_ERR_ROUTE_NOT_FOUND', request.method, request.url.split('?')[0].slice(0, 200)), request, reply);
   });
   app.decorateRequest('caller', null);
+  app.decorateRequest('prefetchedSweep', null);
   // JSON only: a text body is never a spec.
   app.removeContentTypeParser('text/plain');
 
@@ -79,8 +80,9 @@ export async function buildApp(ctx: ApiContext, hooks: BuildAppHooks = {}): Prom
   await app.register(dashboardPlugin());
 
   await app.register(async (v1) => {
-    // Bearer token and per-token rate limit in one Redis script call (gatekeeper.ts).
-    installGate(v1, ctx.redis, { keys: ctx.store.keys, max: ctx.options.rateLimitMax, windowMs: ctx.options.rateLimitWindowMs });
+    // Bearer token and per-token rate limit in one Redis script call, with the status poll's
+    // sweep read in the same call (gatekeeper.ts).
+    installGate(v1, ctx.redis, { keys: ctx.store.keys, store: ctx.store, max: ctx.options.rateLimitMax, windowMs: ctx.options.rateLimitWindowMs });
     await v1.register(sweepsRoutes(ctx), { prefix: '/sweeps' });
     await v1.register(planRoutes(ctx), { prefix: '/plan' });
     await v1.register(engineRoutes(ctx), { prefix: '/engines' });

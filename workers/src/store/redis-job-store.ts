@@ -76,8 +76,19 @@ function parseBranchInfo(text: string): BranchInfo {
 /** Orders sweeps created in the same millisecond by one process (listing score = ms × 1000 + this). */
 let createSeq = 0;
 
+/** The raw answer of sweep_state (SWEEP_STATE_FN). */
+export type SweepStateRaw = (string | null)[][];
+
+/** One planned sweep_state read: its keys, mode, and the cached fixed part it relies on. */
+export interface SweepStateRead {
+  readonly keys: readonly [string, string, string];
+  readonly full: '0' | '1';
+  /** @internal the cached never-changing part ('0' mode), or null. */
+  readonly fixed: FixedPart | null;
+}
+
 /** The part of a sweep record that never changes after creation. */
-interface FixedPart {
+export interface FixedPart {
   rec: Record<string, string>;
   spec: SweepSpec;
   plan: SweepPlan;
@@ -154,16 +165,31 @@ export class RedisJobStore implements JobStore {
   }
 
   async getSweep(id: string): Promise<SweepRecord | null> {
+    const read = this.sweepStateRead(id);
+    const raw = (await this.scripts.bswSweepState(3, ...read.keys, read.full)) as SweepStateRaw;
+    return this.sweepFromState(id, raw, read);
+  }
+
+  /**
+   * The keys and mode of one sweep_state call for `id` (SWEEP_STATE_FN): the whole record
+   * unless its never-changing part is cached. Pass the same read to sweepFromState.
+   */
+  sweepStateRead(id: string): SweepStateRead {
     const k = this.keys;
-    const cached = this.fixed.get(id);
-    const [recRaw, branchesRaw, progressRaw] = (await this.scripts.bswSweepState(3, k.sweep(id), k.branches(id), k.progress(id), cached ? '0' : '1')) as (string | null)[][];
+    const fixed = this.fixed.get(id) ?? null;
+    return { keys: [k.sweep(id), k.branches(id), k.progress(id)], full: fixed ? '0' : '1', fixed };
+  }
+
+  /** The record from a sweep_state answer (null when the sweep does not exist). */
+  sweepFromState(id: string, raw: SweepStateRaw, read: SweepStateRead): SweepRecord | null {
+    const [recRaw, branchesRaw, progressRaw] = raw;
     let rec: Record<string, string>;
     let fixed: FixedPart;
-    if (cached) {
+    if (read.fixed) {
       const [status, startedAt, finishedAt, error, check] = recRaw;
       if (!status) return null;
-      fixed = cached;
-      rec = { ...cached.rec, status, startedAt: startedAt ?? '', finishedAt: finishedAt ?? '', error: error ?? '', check: check ?? '' };
+      fixed = read.fixed;
+      rec = { ...fixed.rec, status, startedAt: startedAt ?? '', finishedAt: finishedAt ?? '', error: error ?? '', check: check ?? '' };
     } else {
       rec = pairsToRecord(recRaw as string[]);
       if (!rec.id) return null;

@@ -40,11 +40,12 @@ export function specValidatorCompiler(planner: Planner): FastifySchemaCompiler<u
   };
 }
 
-/** The caller's sweep, or a 400 (malformed id) / 404 (missing or another owner's). */
+/** The caller's sweep (the gate's prefetched read when it made one), or a 400 (malformed id) / 404 (missing or another owner's). */
 export async function ownedSweep(ctx: ApiContext, request: FastifyRequest, id: string): Promise<SweepRecord> {
   if (!SWEEP_ID_PATTERN.test(id)) throw apiError('BSW_ERR_BAD_SWEEP_ID', id.slice(0, 64));
   const caller = callerOf(request);
-  const record = await ctx.store.getSweep(id);
+  const pre = request.prefetchedSweep;
+  const record = pre !== null && pre.id === id ? ctx.store.sweepFromState(id, pre.raw, pre.read) : await ctx.store.getSweep(id);
   if (!record || record.owner !== caller.owner) throw apiError('BSW_ERR_SWEEP_NOT_FOUND', id);
   return record;
 }
@@ -112,8 +113,10 @@ export function sweepsRoutes(ctx: ApiContext): FastifyPluginAsyncZod {
     });
 
     app.get('/:id', {
-      // The hot polling route: the body is serialised by statusJson (from validated records,
-      // the fixed part kept per sweep); the OpenAPI test checks real bodies against the schema.
+      // The hot polling route: the gate reads the sweep in its own script call (prefetchSweep),
+      // and the body is serialised by statusJson (from validated records, the fixed part kept
+      // per sweep); the OpenAPI test checks real bodies against the schema.
+      config: { prefetchSweep: true },
       serializerCompiler: () => (data) => (typeof data === 'string' ? data : JSON.stringify(data)),
       schema: {
         summary: 'Status of one sweep: per-branch progress, timings, plan',

@@ -173,17 +173,28 @@ return out
 `;
 
 /**
- * KEYS: record, branches, progress
- * ARGV: '1' for the whole record hash (HGETALL), '0' for its changing fields only
- * Returns {record (flat HGETALL, or status, startedAt, finishedAt, error, check), branches flat, progress flat}:
- * one command per status read instead of a MULTI of three.
+ * Lua function sweep_state(record, branches, progress, full): full = '1' for the whole record
+ * hash (HGETALL), '0' for its changing fields only. Returns {record (flat HGETALL, or status,
+ * startedAt, finishedAt, error, check), branches flat, progress flat}. Shared by SWEEP_STATE
+ * and the API gate's one-call status read (services/api/src/gatekeeper.ts).
  */
-export const SWEEP_STATE = `
-local rec
-if ARGV[1] == '1' then
-  rec = redis.call('HGETALL', KEYS[1])
-else
-  rec = redis.call('HMGET', KEYS[1], 'status', 'startedAt', 'finishedAt', 'error', 'check')
+export const SWEEP_STATE_FN = `
+local function sweep_state(rk, bk, pk, full)
+  local rec
+  if full == '1' then
+    rec = redis.call('HGETALL', rk)
+  else
+    rec = redis.call('HMGET', rk, 'status', 'startedAt', 'finishedAt', 'error', 'check')
+  end
+  return {rec, redis.call('HGETALL', bk), redis.call('HGETALL', pk)}
 end
-return {rec, redis.call('HGETALL', KEYS[2]), redis.call('HGETALL', KEYS[3])}
+`;
+
+/**
+ * KEYS: record, branches, progress
+ * ARGV: '1' for the whole record hash, '0' for its changing fields only
+ * Returns sweep_state's answer: one command per status read instead of a MULTI of three.
+ */
+export const SWEEP_STATE = `${SWEEP_STATE_FN}
+return sweep_state(KEYS[1], KEYS[2], KEYS[3], ARGV[1])
 `;
