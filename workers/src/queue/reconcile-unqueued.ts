@@ -52,16 +52,18 @@ export function startUnqueuedReconciler(
 ): () => void {
   const { everyMs = 15_000, report = (l) => process.stderr.write(l) } = options;
   let running = false;
+  let stopped = false;
   const pass = () => {
-    if (running) return;
+    if (running || stopped) return;
     running = true;
     reconcileUnqueued(store, queue, options)
       .then((r) => { if (r.enqueued.length) report(`betasweep: re-queued the branches of ${r.enqueued.length} sweep(s) whose submit did not finish: ${r.enqueued.join(', ')}\n`); })
-      .catch((err: unknown) => report(`betasweep: outbox reconcile failed: ${(err as Error).message} (will retry)\n`))
+      // A pass cut short by stopping (connections closing) is not a failure worth reporting.
+      .catch((err: unknown) => { if (!stopped) report(`betasweep: outbox reconcile failed: ${(err as Error).message} (will retry)\n`); })
       .finally(() => { running = false; });
   };
   pass();
   const timer = setInterval(pass, everyMs);
   timer.unref();
-  return () => clearInterval(timer);
+  return () => { stopped = true; clearInterval(timer); };
 }

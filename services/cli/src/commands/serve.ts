@@ -1,7 +1,9 @@
-/** `betasweep serve` — the REST API (fastify) against a Redis. */
+/** `betasweep serve` — the REST API (fastify) against a Redis, in one or several processes. */
+import cluster from 'node:cluster';
 import type { Command } from 'commander';
 import { serverOptions, type ServerFlags } from '../client/index.js';
 import type { RegisterCommand } from './index.js';
+import { runServePrimary, type ListeningMessage } from './serve-cluster.js';
 
 interface ServeFlags extends ServerFlags {
   host: string;
@@ -11,6 +13,7 @@ interface ServeFlags extends ServerFlags {
   maxActive?: string;
   retentionDays?: string;
   log?: boolean;
+  processes: string;
 }
 
 const int = (v: string | undefined, name: string): number | undefined => {
@@ -30,10 +33,20 @@ export const registerServe: RegisterCommand = (program: Command) => {
     .option('--max-active <n>', 'queued or running sweeps per owner, 0 = no cap (default 20)')
     .option('--retention-days <days>', 'keep finished sweeps this long (default 7; 0 = forever)')
     .option('--log', 'log every request')
+    .option('--processes <n>', 'API processes sharing the port (per-process /metrics counters; leave a core for Redis)', '1')
     .action(async (flags: ServeFlags) => {
+      const processes = Number(flags.processes);
+      if (!Number.isInteger(processes) || processes < 1 || processes > 64) throw new Error(`--processes must be a whole number from 1 to 64, got '${flags.processes}'`);
+      const describe = (address: string) => `betasweep API listening on ${address} (Redis ${flags.redis.replace(/\/\/[^@/]*@/, '//***@')}, prefix ${flags.prefix})`;
+      if (!cluster.isWorker) {
+        await (await import('../../../dashboard/build-dashboard.js')).ensureDashboardBuilt((line) => process.stderr.write(`betasweep: ${line}\n`));
+        if (processes > 1) {
+          runServePrimary(processes, describe);
+          return;
+        }
+      }
       // Loaded here, not at start-up: the other commands should not pay for it.
       const { createApi } = await import('../../../api/src/index.js');
-      await (await import('../../../dashboard/build-dashboard.js')).ensureDashboardBuilt((line) => process.stderr.write(`betasweep: ${line}\n`));
       const retentionDays = int(flags.retentionDays, 'retention-days');
       const api = await createApi({
         redisUrl: flags.redis,
@@ -44,8 +57,21 @@ export const registerServe: RegisterCommand = (program: Command) => {
         retentionSeconds: retentionDays === undefined ? undefined : Math.round(retentionDays * 86400),
         logger: Boolean(flags.log),
       });
-      const address = await api.app.listen({ host: flags.host, port: Number(flags.port) });
-      process.stdout.write(`betasweep API listening on ${address} (Redis ${flags.redis.replace(/\/\/[^@/]*@/, '//***@')}, prefix ${flags.prefix})\n`);
+      let address: string;
+      try {
+        address = await api.app.listen({ host: flags.host, port: Number(flags.port) });
+      } catch (err) {
+        // Without this the open Redis connections would keep a process that cannot serve alive.
+        await api.close().catch(() => undefined);
+        if (cluster.isWorker) {
+          // The IPC channel to the primary would keep this process alive: leave now.
+          process.stderr.write(`betasweep: ${(err as Error).message}\n`);
+          process.exit(1);
+        }
+        throw err;
+      }
+      if (cluster.isWorker) process.send?.({ betasweepListening: address } satisfies ListeningMessage);
+      else process.stdout.write(`${describe(address)}\n`);
       const stop = () => { void api.close().then(() => process.exit(0)); };
       process.once('SIGINT', stop);
       process.once('SIGTERM', stop);
