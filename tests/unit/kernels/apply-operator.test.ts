@@ -49,6 +49,24 @@ describe('applyOperatorAffine', () => {
     }
   });
 
+  it('matches the dense matrix when the transverse fields are uniform (summed, scaled once), with and without a diagonal, γ = 0 or not', () => {
+    const n = 5;
+    const field = Array.from({ length: n }, (_, i) => ({ x: 1 << i, z: 0, weight: -0.7 }));
+    const rand = seededRandom(37);
+    for (const terms of [field, [...field, { x: 0, z: 6, weight: 1.1 }, { x: 0, z: 24, weight: -0.4 }], [...field, { x: 3, z: 3, weight: 0.8 }]]) {
+      const sum = { sites: n, terms };
+      const vin = randomVector(rand, 2 * 2 ** n);
+      const out0 = randomVector(rand, 2 * 2 ** n);
+      const hv = matVec(sumDense(sum), vin, 1);
+      for (const gamma of [0, 0.5]) {
+        const out = gamma === 0 ? new Float64Array(out0.length).fill(Number.NaN) : out0.slice();
+        applyOperatorAffine(compileOperator(sum), 1, vin, out, 0.9, -0.2, gamma);
+        const expected = hv.map((h, k) => 0.9 * h - 0.2 * vin[k] + gamma * out0[k]);
+        expect(maxAbsDiff(out, expected), `${terms.length} terms, γ = ${gamma}`).toBeLessThan(TOL);
+      }
+    }
+  });
+
   it('gives the same result from the table-free compact form ({ tables: false })', () => {
     const rand = seededRandom(24);
     for (let n = 1; n <= 4; n++) {
