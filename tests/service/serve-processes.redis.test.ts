@@ -4,6 +4,7 @@
  * exit code 0, and a start-up failure (the port taken) stops the lot with exit code 1.
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
+import { readFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { afterAll, describe, expect, it } from 'vitest';
 import { freePort } from '../support/private-redis.js';
@@ -18,13 +19,21 @@ function serve(args: string[]): { child: ChildProcess; output: () => string; exi
   return { child, output: () => out, exited };
 }
 
-/** Pids of the node children of `pid`. */
+/** Pids of the API processes forked by `pid` (its children running the CLI; a first start also leaves esbuild's service child from the dashboard build). */
 function childPids(pid: number): number[] {
+  let pids: number[];
   try {
-    return execFileSync('pgrep', ['-P', String(pid)], { encoding: 'utf8' }).split('\n').filter(Boolean).map(Number);
+    pids = execFileSync('pgrep', ['-P', String(pid)], { encoding: 'utf8' }).split('\n').filter(Boolean).map(Number);
   } catch {
     return [];
   }
+  return pids.filter((p) => {
+    try {
+      return readFileSync(`/proc/${p}/cmdline`, 'utf8').includes('betasweep.mjs');
+    } catch {
+      return false;
+    }
+  });
 }
 
 describe('serve --processes', () => {
