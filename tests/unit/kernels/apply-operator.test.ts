@@ -54,8 +54,8 @@ describe('applyOperatorAffine', () => {
     const field = Array.from({ length: n }, (_, i) => ({ x: 1 << i, z: 0, weight: -0.7 }));
     const rand = seededRandom(37);
     // Paired path (a bit-0 flip, no other flip touches bit 0): the field alone, with Z terms,
-    // with a non-constant group. Unpaired uniform path: no field on site 0, or a second
-    // constant group flipping bit 0 (X0X1 with the same weight).
+    // with a non-constant group. Unpaired (the weighted gather): no field on site 0, or a
+    // second constant group flipping bit 0 (X0X1 with the same weight).
     const cases = [
       field, [...field, { x: 0, z: 6, weight: 1.1 }, { x: 0, z: 24, weight: -0.4 }], [...field, { x: 3, z: 3, weight: 0.8 }],
       field.slice(1), [...field, { x: 3, z: 0, weight: -0.7 }, { x: 0, z: 5, weight: 0.3 }],
