@@ -67,7 +67,8 @@ describe('fillRandomPhaseVector', () => {
   });
 
   it('rejects a non-power-of-two dimension, a short buffer and seeds or streams out of range', () => {
-    expect(() => fillRandomPhaseVector(new Float64Array(12), 6, 1, 0)).toThrow(/dim/);
+    expect(() => fillRandomPhaseVector(new Float64Array(12), 0, 1, 0)).toThrow(/dim/);
+    expect(() => fillRandomPhaseVector(new Float64Array(12), 2.5, 1, 0)).toThrow(/dim/);
     expect(() => fillRandomPhaseVector(new Float64Array(6), 4, 1, 0)).toThrow(/out/);
     expect(() => fillRandomPhaseVector(new Float64Array(8), 4, -1, 0)).toThrow(/seed/);
     expect(() => fillRandomPhaseVector(new Float64Array(8), 4, 1, 2 ** 32)).toThrow(/stream/);

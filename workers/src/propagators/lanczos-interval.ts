@@ -27,7 +27,7 @@
  * Deterministic: the start vector depends on `seed` only.
  */
 import { hermitianTridiagonalQl } from '../linalg/hermitian-tridiagonal-ql.js';
-import { Xoshiro128 } from '../random/index.js';
+import { fillRandomPhaseVector } from '../random/index.js';
 import type { AffineApply, SpectralInterval } from './types.js';
 
 /** Stop when both extremal Ritz residual bounds are at most this fraction of the Ritz spread. */
@@ -87,14 +87,7 @@ export function lanczosInterval(
     return { interval: { ...bound }, ritz: { ...bound }, residuals: [0, 0], groundBound: bound.hi, steps: 0, converged: true };
   }
 
-  const rng = Xoshiro128.forStream(seed >>> 0, 0);
-  const amp = 1 / Math.sqrt(dim);
-  const turn = (2 * Math.PI) / 2 ** 32;
-  for (let s = 0; s < dim; s++) {
-    const phi = rng.nextUint32() * turn;
-    v[2 * s] = amp * Math.cos(phi);
-    v[2 * s + 1] = amp * Math.sin(phi);
-  }
+  fillRandomPhaseVector(v, dim, seed >>> 0, 0);
   w.fill(0);
   const steps = Math.min(maxSteps, dim);
   const alpha = new Float64Array(steps);

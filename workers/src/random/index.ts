@@ -5,3 +5,4 @@
  */
 export { Xoshiro128 } from './xoshiro128.js';
 export { mix32 } from './mix32.js';
+export { fillRandomPhaseVector } from './random-phase-vector.js';

@@ -30,7 +30,7 @@ export { jackknifeRatio } from './jackknife-ratio.js';
 export type { JackknifeResult, RatioFunction } from './jackknife-ratio.js';
 export { measurePauliBatch, pauliBatch, WHT_MIN_STRINGS_PER_SITE } from './measure-pauli-batch.js';
 export type { PauliBatch, PauliBatchGroup } from './measure-pauli-batch.js';
-export { fillRandomPhaseVector } from './random-phase-vector.js';
+export { fillRandomPhaseVector } from '../../random/index.js';
 export { propagateToTimes, offsetSeries } from './propagate-to-times.js';
 export type { MultiTimeReport } from './propagate-to-times.js';
 export {

@@ -30,7 +30,7 @@ import { measurePauliBatch } from './measure-pauli-batch.js';
 import { propagateToTimes } from './propagate-to-times.js';
 import type { MultiTimeReport } from './propagate-to-times.js';
 import type { QuenchBlock } from './quench-blocks.js';
-import { fillRandomPhaseVector } from './random-phase-vector.js';
+import { fillRandomPhaseVector } from '../../random/index.js';
 import { ROUNDING_PER_MATVEC } from './typical-budget.js';
 import type { TypicalBudget } from './typical-budget.js';
 import type { TypicalSampleRecord } from './typical-samples.js';
