@@ -106,3 +106,14 @@ async function probeSample(runner: TypicalSampleRunner): Promise<unknown> {
     blocks: runner.blocks, blockTolerance: budget.realTolerance / 13,
   }).catch((e: unknown) => { expect(e).toBeInstanceOf(IntervalMissError); throw e; });
 }
+
+describe('normSlack', () => {
+  it('should cover the worst-case rounding of two 2^(N+1)-term sums and never go below 1e-12', async () => {
+    const { normSlack, NORM_SLACK } = await import('../../../workers/src/engines/typical/run-sample.js');
+    expect(normSlack(2)).toBe(NORM_SLACK);
+    expect(normSlack(2 ** 16)).toBeCloseTo(4 * 2 ** 16 * Number.EPSILON, 25);
+    // N = 24: 4·2^24·ε = 1.49e-8.
+    expect(normSlack(2 ** 24)).toBeGreaterThan(1.4e-8);
+    expect(normSlack(2 ** 24)).toBeLessThan(1.6e-8);
+  });
+});
